@@ -1,0 +1,126 @@
+import connectPgSimple from 'connect-pg-simple';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import fs from 'node:fs';
+import path from 'node:path';
+import type pg from 'pg';
+import type { Drawing } from '../shared/drawings/types';
+import type { Config } from './config';
+import type { Db } from './db/client';
+import { buildServices, type Deps } from './deps';
+import { AppError, errorHandler } from './http/errors';
+import { mountRoutes, type RouteDef } from './http/routes';
+import { authRoutes } from './modules/auth/routes';
+import { toPerson } from './modules/auth/service';
+import { authRepository } from './modules/auth/repository';
+import { peopleRoutes } from './modules/people/routes';
+import { settingsRoutes } from './modules/settings/routes';
+import { unitsRoutes } from './modules/units/routes';
+
+export interface AppHandle {
+  app: Express;
+  deps: Deps;
+  /** Every API route with its declared access, for tests and docs. */
+  routeTable: readonly Pick<RouteDef, 'method' | 'path' | 'access' | 'summary'>[];
+  /** Starts background workers (outbox, digest) when the config asks for them. */
+  start(): Promise<void>;
+  close(): Promise<void>;
+}
+
+export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawings: ReadonlyMap<string, Drawing>; distDir?: string }): AppHandle {
+  const { db, pool, config, drawings } = opts;
+  const deps: Deps = { db, pool, config, drawings, services: buildServices(db, config, drawings) };
+  const stoppers: (() => Promise<void> | void)[] = [];
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
+  app.set('query parser', 'simple');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'worker-src': ["'self'"],
+          'manifest-src': ["'self'"],
+          'object-src': ["'none'"],
+          'base-uri': ["'self'"],
+          'form-action': ["'self'"],
+          'frame-ancestors': ["'none'"],
+        },
+      },
+      strictTransportSecurity: config.TRUST_PROXY,
+    }),
+  );
+
+  const PgStore = connectPgSimple(session);
+  const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: config.NODE_ENV === 'test' ? false : 900 });
+  app.use(
+    '/api',
+    session({
+      name: 'hoodline.sid',
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.TRUST_PROXY, maxAge: 12 * 3600 * 1000 },
+    }),
+  );
+  app.use('/api', express.json({ limit: '256kb' }));
+
+  // Load the signed-in person on every API request; a deactivated person or a session issued before
+  // "sign out everywhere" counts as signed out.
+  const authRepo = authRepository(db);
+  app.use('/api', async (req, _res, next) => {
+    req.person = null;
+    const id = req.session?.personId;
+    if (!id) return next();
+    try {
+      const p = await authRepo.byId(id);
+      const issuedAt = req.session.issuedAt ?? 0;
+      if (p && p.active && !(p.sessionsValidAfter && p.sessionsValidAfter.getTime() > issuedAt)) {
+        req.person = toPerson(p);
+      } else {
+        delete req.session.personId;
+      }
+      next();
+    } catch (e) {
+      next(e);
+    }
+  });
+
+  const defs: RouteDef[] = [...settingsRoutes(deps), ...authRoutes(deps), ...peopleRoutes(deps), ...unitsRoutes(deps)];
+  const api = express.Router();
+  mountRoutes(api, defs);
+  app.use('/api', api);
+  app.use('/api', (_req, _res, next) => next(new AppError('not_found', 'No such API route')));
+
+  const distDir = opts.distDir;
+  if (distDir && fs.existsSync(path.join(distDir, 'index.html'))) {
+    app.use(express.static(distDir, { index: false, maxAge: '1h', setHeaders: (res, p) => { if (p.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable'); } }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(distDir, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+
+  return {
+    app,
+    deps,
+    routeTable: defs.map(({ method, path: p, access, summary }) => ({ method, path: `/api${p}`, access, summary })),
+    async start() {},
+    async close() {
+      for (const stop of stoppers.reverse()) await stop();
+      store.close();
+    },
+  };
+}

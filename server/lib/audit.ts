@@ -1,0 +1,23 @@
+import type { DbOrTx } from '../db/client';
+import { auditLog } from '../db/schema';
+
+export interface AuditEntry {
+  actorId: string | null;
+  action: string;
+  entity: string;
+  entityId?: string | null;
+  ip?: string | null;
+  details?: unknown;
+}
+
+/** Every write records who, when, what and from where; the table refuses UPDATE and DELETE. */
+export async function audit(db: DbOrTx, e: AuditEntry): Promise<void> {
+  await db.insert(auditLog).values({
+    actorId: e.actorId,
+    action: e.action,
+    entity: e.entity,
+    entityId: e.entityId ?? null,
+    ip: e.ip ?? null,
+    details: (e.details ?? null) as object | null,
+  });
+}

@@ -1,0 +1,12 @@
+export const FINDING_STATES = ['open', 'in_repair', 'repaired', 'verified', 'voided'] as const;
+export type FindingState = (typeof FINDING_STATES)[number];
+export const FINDING_WEIGHTS = ['federal', 'shop', 'note'] as const;
+export type FindingWeight = (typeof FINDING_WEIGHTS)[number];
+export const INSPECTION_KINDS = ['daily', 'periodic'] as const;
+export type InspectionKind = (typeof INSPECTION_KINDS)[number];
+export const INSPECTION_STATUSES = ['in_progress', 'signed'] as const;
+export const COVERAGE_STATES = ['passed', 'finding', 'not_applicable', 'gap'] as const;
+export type CoverageState = (typeof COVERAGE_STATES)[number];
+export const UNIT_SERVICE_STATES = ['in_service', 'out_of_service', 'stored'] as const;
+export type UnitServiceState = (typeof UNIT_SERVICE_STATES)[number];
+export const OUTBOX_STATUSES = ['pending', 'sent', 'failed'] as const;
