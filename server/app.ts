@@ -11,6 +11,13 @@ import type { Db } from './db/client';
 import { buildServices, type Deps } from './deps';
 import { AppError, errorHandler } from './http/errors';
 import { mountRoutes, type RouteDef } from './http/routes';
+import { checksRoutes } from './modules/checks/routes';
+import { dueRoutes } from './modules/due/routes';
+import { hotSpotsRoutes } from './modules/hot-spots/routes';
+import { labRoutes } from './modules/lab/routes';
+import { outboxRoutes } from './modules/outbox/routes';
+import { repairsRoutes } from './modules/repairs/routes';
+import { walkaroundRoutes } from './modules/walkaround/routes';
 import { authRoutes } from './modules/auth/routes';
 import { toPerson } from './modules/auth/service';
 import { authRepository } from './modules/auth/repository';
@@ -97,7 +104,20 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
     }
   });
 
-  const defs: RouteDef[] = [...settingsRoutes(deps), ...authRoutes(deps), ...peopleRoutes(deps), ...unitsRoutes(deps)];
+  // Each feature module declares its routes with their access rule; this is the whole API.
+  const defs: RouteDef[] = [
+    ...settingsRoutes(deps),
+    ...authRoutes(deps),
+    ...peopleRoutes(deps),
+    ...unitsRoutes(deps),
+    ...checksRoutes(deps),
+    ...walkaroundRoutes(deps),
+    ...repairsRoutes(deps),
+    ...dueRoutes(deps),
+    ...hotSpotsRoutes(deps),
+    ...labRoutes(deps),
+    ...outboxRoutes(deps),
+  ];
   const api = express.Router();
   mountRoutes(api, defs);
   app.use('/api', api);

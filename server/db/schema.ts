@@ -416,3 +416,79 @@ export const idempotencyKeys = pgTable(
   },
   (t) => [primaryKey({ columns: [t.personId, t.key] })],
 );
+
+// Orientation lab: kept apart from inspection records; nothing here touches units, inspections or findings.
+export const trainingGroups = pgTable('training_groups', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  name: text('name').notNull().unique(),
+  createdBy: uuid('created_by')
+    .notNull()
+    .references(() => people.id),
+  createdAt: created(),
+});
+
+export const trainingGroupMembers = pgTable(
+  'training_group_members',
+  {
+    groupId: uuid('group_id')
+      .notNull()
+      .references(() => trainingGroups.id),
+    personId: uuid('person_id')
+      .notNull()
+      .references(() => people.id),
+  },
+  (t) => [primaryKey({ columns: [t.groupId, t.personId] })],
+);
+
+export const quizzes = pgTable(
+  'quizzes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    title: text('title').notNull(),
+    /** Null: any unit type, picked at random per prompt. */
+    unitTypeKey: text('unit_type_key').references(() => unitTypes.key),
+    /** Prompt templates: [{ template, count, ... }]. */
+    templates: jsonb('templates').notNull(),
+    groupId: uuid('group_id').references(() => trainingGroups.id),
+    createdBy: uuid('created_by')
+      .notNull()
+      .references(() => people.id),
+    createdAt: created(),
+    version: integer('version').notNull().default(1),
+  },
+  (t) => [index('quizzes_group').on(t.groupId)],
+);
+
+export const quizAttempts = pgTable(
+  'quiz_attempts',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    quizId: uuid('quiz_id')
+      .notNull()
+      .references(() => quizzes.id),
+    personId: uuid('person_id')
+      .notNull()
+      .references(() => people.id),
+    /** The generated prompts (with the F end and expected answer), fixed at start so grading is repeatable. */
+    prompts: jsonb('prompts').notNull(),
+    startedAt: ts('started_at').notNull().defaultNow(),
+    finishedAt: ts('finished_at'),
+    score: integer('score'),
+  },
+  (t) => [index('quiz_attempts_quiz_person').on(t.quizId, t.personId)],
+);
+
+export const quizAnswers = pgTable(
+  'quiz_answers',
+  {
+    attemptId: uuid('attempt_id')
+      .notNull()
+      .references(() => quizAttempts.id),
+    promptIndex: integer('prompt_index').notNull(),
+    answer: jsonb('answer').notNull(),
+    correct: boolean('correct').notNull(),
+    ms: integer('ms').notNull(),
+    at: ts('at').notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.attemptId, t.promptIndex] }), check('quiz_answers_ms', sql`${t.ms} >= 0`)],
+);

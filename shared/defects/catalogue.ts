@@ -328,6 +328,12 @@ const SPECS: Partial<Record<PartKind, readonly Spec[]>> = {
       note: 'No federal rule known; the F is the trade convention that defines front, left and right.',
     },
     { key: 'front_marking_illegible', label: 'F marking illegible', ...shop },
+    {
+      key: 'front_marking_mismatch',
+      label: 'F found on the other end from the unit record',
+      ...shop,
+      note: 'Raised by Hoodline when the inspector confirms the F on the end the record does not say; the foreman and admin correct the record.',
+    },
   ],
 };
 

@@ -1,11 +1,20 @@
+import { lazy } from 'react';
 import { createBrowserRouter } from 'react-router-dom';
-import { Placeholder } from '../components/placeholder';
 import { AccountPage } from '../features/account/account-page';
 import { LoginPage } from '../features/auth/components/login-page';
 import { PeoplePage } from '../features/people/components/people-page';
 import { RequireCap } from './guard';
 import { Home, NotFound } from './home';
 import { Shell } from './shell';
+
+// Feature screens load on demand so the first screen stays small (Konva loads only with the canvas screens).
+const Walkaround = lazy(() => import('../features/walkaround'));
+const Repairs = lazy(() => import('../features/repairs'));
+const DueBoard = lazy(() => import('../features/due-board'));
+const Units = lazy(() => import('../features/units'));
+const HotSpots = lazy(() => import('../features/hot-spots'));
+const Lab = lazy(() => import('../features/orientation-lab'));
+const Outbox = lazy(() => import('../features/outbox'));
 
 export const router = createBrowserRouter([
   { path: '/sign-in', element: <LoginPage /> },
@@ -16,13 +25,13 @@ export const router = createBrowserRouter([
       { index: true, element: <Home /> },
       { path: 'account', element: <AccountPage /> },
       { path: 'people', element: <RequireCap cap="administer"><PeoplePage /></RequireCap> },
-      { path: 'walkaround/*', element: <RequireCap cap="inspect"><Placeholder title="Walkaround" what="The walkaround is built by the walkaround work." /></RequireCap> },
-      { path: 'repairs', element: <RequireCap cap="readRecords"><Placeholder title="Repair queue" what="The repair queue comes with the repair work." /></RequireCap> },
-      { path: 'due', element: <RequireCap cap="readRecords"><Placeholder title="Due board" what="The due board comes with the repair work." /></RequireCap> },
-      { path: 'units/*', element: <RequireCap cap="readRecords"><Placeholder title="Units" what="The roster comes with the drawings." /></RequireCap> },
-      { path: 'hot-spots', element: <RequireCap cap="readFleet"><Placeholder title="Hot spots" what="Fleet hot spots come with the hot-spots work." /></RequireCap> },
-      { path: 'lab/*', element: <RequireCap cap="takeQuiz"><Placeholder title="Orientation lab" what="The lab comes with the training work." /></RequireCap> },
-      { path: 'outbox', element: <RequireCap cap="readOutbox"><Placeholder title="Outbox" what="The outbox comes with the walkaround's e-mail." /></RequireCap> },
+      { path: 'walkaround/*', element: <RequireCap cap="inspect"><Walkaround /></RequireCap> },
+      { path: 'repairs/*', element: <RequireCap cap="readRecords"><Repairs /></RequireCap> },
+      { path: 'due/*', element: <RequireCap cap="readRecords"><DueBoard /></RequireCap> },
+      { path: 'units/*', element: <RequireCap cap="readRecords"><Units /></RequireCap> },
+      { path: 'hot-spots/*', element: <RequireCap cap="readFleet"><HotSpots /></RequireCap> },
+      { path: 'lab/*', element: <RequireCap cap="takeQuiz"><Lab /></RequireCap> },
+      { path: 'outbox/*', element: <RequireCap cap="readOutbox"><Outbox /></RequireCap> },
       { path: '*', element: <NotFound /> },
     ],
   },

@@ -1,0 +1,6 @@
+import { Placeholder } from '../../components/placeholder';
+
+/** Screen entry, lazy-loaded by the router. */
+export default function Screen() {
+  return <Placeholder title="Due board" what="This screen is being built." />;
+}
