@@ -53,10 +53,7 @@ function buildIfStale() {
   if (built >= sources) return;
   console.log('Building the client (sources changed since the last build) ...');
   const r = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
-  if (r.status !== 0) {
-    console.error('The client build failed.');
-    process.exit(1);
-  }
+  if (r.status !== 0) throw new Error('the client build failed');
 }
 
 function printWelcome(url: string) {
@@ -113,12 +110,12 @@ async function main() {
     return;
   }
 
-  buildIfStale();
   process.env.SERVE_DIST = '1';
   process.env.NODE_ENV ??= 'production';
-  const { loadConfig } = await import('../server/config');
-  const { startServer } = await import('../server/index');
   try {
+    buildIfStale();
+    const { loadConfig } = await import('../server/config');
+    const { startServer } = await import('../server/index');
     const running = await startServer(loadConfig(), { seed });
     stopServer = running.stop;
     printWelcome(running.url);

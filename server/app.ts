@@ -8,7 +8,8 @@ import type pg from 'pg';
 import type { Drawing } from '../shared/drawings/types';
 import type { Config } from './config';
 import type { Db } from './db/client';
-import { buildServices, type Deps } from './deps';
+import { buildServices, buildStorage, type Deps } from './deps';
+import { smtpMailer, startFakeSmtp, type Mailer, type ReceivedMail } from './mail/mailer';
 import { AppError, errorHandler } from './http/errors';
 import { mountRoutes, type RouteDef } from './http/routes';
 import { checksRoutes } from './modules/checks/routes';
@@ -35,9 +36,21 @@ export interface AppHandle {
   close(): Promise<void>;
 }
 
-export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawings: ReadonlyMap<string, Drawing>; distDir?: string }): AppHandle {
+export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawings: ReadonlyMap<string, Drawing>; distDir?: string; mailer?: Mailer }): AppHandle {
   const { db, pool, config, drawings } = opts;
-  const deps: Deps = { db, pool, config, drawings, services: buildServices(db, config, drawings) };
+  // The SMTP port is known only once the fake server listens (port 0 picks a free one).
+  let smtpPort = config.SMTP_PORT;
+  let received: ReceivedMail[] | null = null;
+  const mailer: Mailer = opts.mailer ?? { send: (m) => smtpMailer({ host: config.SMTP_HOST, port: smtpPort, from: config.MAIL_FROM }).send(m) };
+  const deps: Deps = {
+    db,
+    pool,
+    config,
+    drawings,
+    services: buildServices(db, config, drawings, mailer),
+    storage: buildStorage(config),
+    mailbox: () => received,
+  };
   const stoppers: (() => Promise<void> | void)[] = [];
   const app = express();
   app.disable('x-powered-by');
@@ -137,7 +150,31 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
     app,
     deps,
     routeTable: defs.map(({ method, path: p, access, summary }) => ({ method, path: `/api${p}`, access, summary })),
-    async start() {},
+    async start() {
+      if (config.FAKE_SMTP && !opts.mailer) {
+        const fake = await startFakeSmtp(config.SMTP_PORT, config.SMTP_HOST);
+        smtpPort = fake.port;
+        received = fake.received;
+        stoppers.push(() => fake.close());
+      }
+      if (config.WORKERS) {
+        let busy = false;
+        const tick = async () => {
+          if (busy) return;
+          busy = true;
+          try {
+            await deps.services.outbox.runOnce();
+          } catch (e) {
+            console.error('[hoodline] outbox worker:', e instanceof Error ? e.message : e);
+          } finally {
+            busy = false;
+          }
+        };
+        const timer = setInterval(() => void tick(), config.OUTBOX_POLL_MS);
+        timer.unref();
+        stoppers.push(() => clearInterval(timer));
+      }
+    },
     async close() {
       for (const stop of stoppers.reverse()) await stop();
       store.close();

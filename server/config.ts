@@ -27,6 +27,9 @@ const EnvSchema = z.object({
   S3_ENDPOINT: z.string().optional(),
   S3_BUCKET: z.string().default('hoodline-photos'),
   S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(3000),
   SERVE_DIST: bool.default(false),
   DIAGRAMS_DIR: z.string().default('diagrams'),
   /** Run background workers (outbox, digest) in this process. */

@@ -9,6 +9,7 @@ export type ErrorCode =
   | 'not_found'
   | 'conflict'
   | 'stale'
+  | 'check_passed'
   | 'too_large'
   | 'unsupported_media_type'
   | 'rate_limited'
@@ -23,6 +24,7 @@ const STATUS: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   stale: 409,
+  check_passed: 409,
   too_large: 413,
   unsupported_media_type: 415,
   rate_limited: 429,

@@ -39,7 +39,7 @@ export interface RouteDef<BS extends ZodType | undefined = any, QS extends ZodTy
   params?: PS;
   /** The route takes multipart/form-data instead of JSON. */
   multipart?: RequestHandler;
-  /** Extra middleware run before access checks (e.g. a rate limiter). */
+  /** Extra middleware run after the access check, before the body is read (e.g. a rate limiter). */
   before?: RequestHandler[];
   handler: (ctx: RouteContext<Infer<BS>, Infer<QS>, Infer<PS>>) => Promise<RouteResult> | RouteResult;
 }
@@ -105,13 +105,13 @@ export function mountRoutes(router: Router, defs: readonly RouteDef[]): void {
         next();
       });
     }
-    chain.push(...(def.before ?? []));
     chain.push((req, _res, next) => {
       const verdict = isAllowed(def.access, req.person ?? null);
       if (verdict === 'unauthenticated') return next(new AppError('unauthenticated', 'Sign in first'));
       if (verdict === 'forbidden') return next(new AppError('forbidden', 'Your role cannot do this'));
       next();
     });
+    chain.push(...(def.before ?? []));
     if (def.multipart) chain.push(def.multipart);
     chain.push(async (req: Request, res: Response, next: NextFunction) => {
       try {

@@ -40,6 +40,7 @@ export const StartInspectionBody = z.object({
 export type StartInspectionBody = z.infer<typeof StartInspectionBody>;
 
 export const CoverageBody = z.object({
+  instanceIds: z.array(z.string().min(1).max(80)).min(1).max(500),
   state: z.enum(['passed', 'not_applicable', 'gap']),
   /** Required for not_applicable and for a gap left at signing. */
   reason: z.string().trim().max(300).optional(),
@@ -77,7 +78,6 @@ export type FindingBody = z.infer<typeof FindingBody>;
 
 export const SignBody = z.object({
   password: z.string().min(1, 'Enter your password to sign').max(200),
-  place: z.string().trim().max(120).optional(),
 });
 
 export const CorrectionBody = z.object({
@@ -148,5 +148,6 @@ export interface InspectionView {
   findings: FindingView[];
   corrections: { id: string; note: string; signedAt: string; by: string }[];
   correctsId: string | null;
+  railroad: { name: string; reportingMark: string; timeZone: string };
   version: number;
 }

@@ -31,7 +31,7 @@ export function Shell() {
         <div className="flex items-center gap-3 px-3 py-2">
           <NavLink to="/" className="flex items-center gap-2 text-2xl font-bold" aria-label="Hoodline home">
             <Logo size={36} />
-            <span className="hidden sm:inline">Hoodline</span>
+            <span className="hidden xl:inline">Hoodline</span>
           </NavLink>
           <button className="btn ml-auto lg:hidden" aria-expanded={menu} aria-controls="main-nav" onClick={() => setMenu((m) => !m)}>
             Menu
@@ -43,20 +43,20 @@ export function Shell() {
                 to={s.path}
                 onClick={() => setMenu(false)}
                 className={({ isActive }) =>
-                  `flex min-h-12 items-center rounded-md px-3 text-lg font-bold ${isActive ? 'bg-graphite text-paper' : 'hover:bg-paper-2'}`
+                  `flex min-h-12 items-center rounded-md px-2.5 text-lg font-bold whitespace-nowrap ${isActive ? 'bg-graphite text-paper' : 'hover:bg-paper-2'}`
                 }
               >
                 {s.title}
               </NavLink>
             ))}
           </nav>
-          <div className="hidden items-center gap-2 lg:ml-auto lg:flex">
+          <div className="hidden items-center gap-2 xl:ml-auto xl:flex">
             <span className="text-right leading-tight" data-testid="signed-in">
               <span className="block font-bold">{me.data.name}</span>
               <span className="block text-sm text-graphite-2">{ROLE_LABELS[me.data.role]}</span>
             </span>
           </div>
-          <NavLink to="/account" className="btn px-3" aria-label="Your account">
+          <NavLink to="/account" className="btn px-3 lg:ml-auto xl:ml-0" aria-label="Your account">
             <span className="lg:hidden">{me.data.name.split(' ')[0]}</span>
             <span className="hidden lg:inline">Account</span>
           </NavLink>

@@ -1,0 +1,217 @@
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import type { DbOrTx } from '../../db/client';
+import {
+  findingEvents,
+  findings,
+  inspectionItems,
+  inspections,
+  people,
+  photos,
+  railroadSettings,
+  routines,
+  unitTags,
+  units,
+  yards,
+} from '../../db/schema';
+
+export type FindingRow = typeof findings.$inferSelect;
+export type InspectionRow = typeof inspections.$inferSelect;
+
+/** Everything the walkaround reads and writes; the only place its SQL lives. */
+export const walkaroundRepository = (db: DbOrTx) => ({
+  async settings() {
+    const [s] = await db.select().from(railroadSettings).limit(1);
+    return s;
+  },
+  async unit(id: string) {
+    const r = await db
+      .select({ unit: units, yardName: yards.name })
+      .from(units)
+      .leftJoin(yards, eq(yards.id, units.yardId))
+      .where(eq(units.id, id))
+      .limit(1);
+    return r[0] ? { ...r[0].unit, yardName: r[0].yardName } : null;
+  },
+  async lockUnit(id: string) {
+    await db.execute(sql`select id from units where id = ${id} for update`);
+  },
+  async routine(personId: string | null, unitTypeKey: string) {
+    const r = await db
+      .select()
+      .from(routines)
+      .where(and(personId ? eq(routines.personId, personId) : isNull(routines.personId), eq(routines.unitTypeKey, unitTypeKey)))
+      .limit(1);
+    return r[0] ?? null;
+  },
+  async insertRoutine(v: typeof routines.$inferInsert) {
+    const [r] = await db.insert(routines).values(v).returning();
+    return r;
+  },
+  async updateRoutine(id: string, version: number, v: Partial<typeof routines.$inferInsert>) {
+    const r = await db
+      .update(routines)
+      .set({ ...v, version: sql`${routines.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(routines.id, id), eq(routines.version, version)))
+      .returning();
+    return r[0] ?? null;
+  },
+  async inspection(id: string) {
+    const r = await db.select().from(inspections).where(eq(inspections.id, id)).limit(1);
+    return r[0] ?? null;
+  },
+  async inspectionForUpdate(id: string) {
+    const r = await db.execute<{ id: string }>(sql`select id from inspections where id = ${id} for update`);
+    return r.rows.length > 0;
+  },
+  async inspectionByKey(inspectorId: string, key: string) {
+    const r = await db
+      .select()
+      .from(inspections)
+      .where(and(eq(inspections.inspectorId, inspectorId), eq(inspections.idempotencyKey, key)))
+      .limit(1);
+    return r[0] ?? null;
+  },
+  async insertInspection(v: typeof inspections.$inferInsert) {
+    const [r] = await db.insert(inspections).values(v).returning();
+    return r;
+  },
+  async signInspection(id: string, version: number) {
+    const r = await db
+      .update(inspections)
+      .set({ status: 'signed', signedAt: new Date(), version: sql`${inspections.version} + 1` })
+      .where(and(eq(inspections.id, id), eq(inspections.status, 'in_progress'), eq(inspections.version, version)))
+      .returning();
+    return r[0] ?? null;
+  },
+  async touchInspection(id: string) {
+    await db.update(inspections).set({ version: sql`${inspections.version} + 1` }).where(eq(inspections.id, id));
+  },
+  async listInspections(f: { inspectorId?: string; unitId?: string; status?: string; limit: number }) {
+    return db
+      .select({
+        id: inspections.id,
+        kind: inspections.kind,
+        status: inspections.status,
+        startedAt: inspections.startedAt,
+        signedAt: inspections.signedAt,
+        unitId: inspections.unitId,
+        roadNumber: units.roadNumber,
+        inspector: people.name,
+        correctsId: inspections.correctsId,
+      })
+      .from(inspections)
+      .innerJoin(units, eq(units.id, inspections.unitId))
+      .innerJoin(people, eq(people.id, inspections.inspectorId))
+      .where(
+        and(
+          f.inspectorId ? eq(inspections.inspectorId, f.inspectorId) : undefined,
+          f.unitId ? eq(inspections.unitId, f.unitId) : undefined,
+          f.status ? eq(inspections.status, f.status) : undefined,
+        ),
+      )
+      .orderBy(sql`${inspections.startedAt} desc`)
+      .limit(f.limit);
+  },
+  async corrections(id: string) {
+    return db
+      .select({ id: inspections.id, note: inspections.correctionNote, signedAt: inspections.signedAt, by: people.name })
+      .from(inspections)
+      .innerJoin(people, eq(people.id, inspections.inspectorId))
+      .where(eq(inspections.correctsId, id))
+      .orderBy(asc(inspections.signedAt));
+  },
+  async items(inspectionId: string) {
+    return db
+      .select({ instanceId: inspectionItems.instanceId, state: inspectionItems.state, reason: inspectionItems.reason })
+      .from(inspectionItems)
+      .where(eq(inspectionItems.inspectionId, inspectionId));
+  },
+  async setItems(inspectionId: string, rows: { instanceId: string; state: string; reason: string | null }[]) {
+    if (!rows.length) return;
+    await db
+      .insert(inspectionItems)
+      .values(rows.map((r) => ({ inspectionId, ...r })))
+      .onConflictDoUpdate({
+        target: [inspectionItems.inspectionId, inspectionItems.instanceId],
+        set: { state: sql`excluded.state`, reason: sql`excluded.reason`, updatedAt: new Date() },
+      });
+  },
+  /** Marks an item as having a finding unless it already says so. */
+  async markFindingItem(inspectionId: string, instanceId: string) {
+    await db
+      .insert(inspectionItems)
+      .values({ inspectionId, instanceId, state: 'finding', reason: null })
+      .onConflictDoUpdate({ target: [inspectionItems.inspectionId, inspectionItems.instanceId], set: { state: 'finding', reason: null, updatedAt: new Date() } });
+  },
+  async findingsOfInspection(inspectionId: string) {
+    return db.select().from(findings).where(eq(findings.inspectionId, inspectionId)).orderBy(asc(findings.createdAt));
+  },
+  async findingByKey(createdBy: string, key: string) {
+    const r = await db.select().from(findings).where(and(eq(findings.createdBy, createdBy), eq(findings.idempotencyKey, key))).limit(1);
+    return r[0] ?? null;
+  },
+  async finding(id: string) {
+    const r = await db.select().from(findings).where(eq(findings.id, id)).limit(1);
+    return r[0] ?? null;
+  },
+  async insertFinding(v: typeof findings.$inferInsert) {
+    const [r] = await db.insert(findings).values(v).returning();
+    return r;
+  },
+  async insertEvent(v: typeof findingEvents.$inferInsert) {
+    await db.insert(findingEvents).values(v);
+  },
+  async photosOf(findingIds: string[]) {
+    if (!findingIds.length) return [];
+    return db.select({ id: photos.id, findingId: photos.findingId }).from(photos).where(inArray(photos.findingId, findingIds)).orderBy(asc(photos.createdAt));
+  },
+  async insertPhoto(v: typeof photos.$inferInsert) {
+    const [r] = await db.insert(photos).values(v).returning();
+    return r;
+  },
+  async photo(id: string) {
+    const r = await db.select().from(photos).where(eq(photos.id, id)).limit(1);
+    return r[0] ?? null;
+  },
+  async openTag(unitId: string) {
+    const r = await db.select().from(unitTags).where(and(eq(unitTags.unitId, unitId), isNull(unitTags.clearedAt))).limit(1);
+    return r[0] ?? null;
+  },
+  /** Opens the unit's non-complying tag and flag once; a second federal finding joins the same tag. */
+  async markNonComplying(unitId: string, openedBy: string, place: string) {
+    await db.execute(sql`update units set non_complying_since = coalesce(non_complying_since, now()) where id = ${unitId}`);
+    await db.insert(unitTags).values({ unitId, openedBy, place }).onConflictDoNothing();
+  },
+  async updateTag(id: string, v: { destination?: string; restrictions?: string }) {
+    const [r] = await db.update(unitTags).set(v).where(eq(unitTags.id, id)).returning();
+    return r;
+  },
+  async openFederalFindings(unitId: string) {
+    return db
+      .select()
+      .from(findings)
+      .where(and(eq(findings.unitId, unitId), eq(findings.weight, 'federal'), inArray(findings.state, ['open', 'in_repair', 'repaired'])))
+      .orderBy(asc(findings.createdAt));
+  },
+  async personName(id: string) {
+    const r = await db.select({ name: people.name }).from(people).where(eq(people.id, id)).limit(1);
+    return r[0]?.name ?? '';
+  },
+  async recipients(roles: string[], yardId: string | null) {
+    // Foremen of the unit's yard; with no yard (or nobody there), every active foreman.
+    const rows = await db
+      .select({ email: people.email, role: people.role, yardId: people.yardId })
+      .from(people)
+      .where(and(eq(people.active, true), inArray(people.role, roles)));
+    const out = new Set<string>();
+    for (const role of roles) {
+      const ofRole = rows.filter((r) => r.role === role);
+      const here = role === 'foreman' && yardId ? ofRole.filter((r) => r.yardId === yardId) : ofRole;
+      for (const r of here.length ? here : ofRole) out.add(r.email);
+    }
+    return [...out];
+  },
+  async setUnitDate(unitId: string, column: 'last_periodic_on', date: string) {
+    await db.execute(sql`update units set ${sql.raw(column)} = ${date}, version = version + 1, updated_at = now() where id = ${unitId}`);
+  },
+});
