@@ -163,6 +163,7 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
           if (busy) return;
           busy = true;
           try {
+            await deps.services.due.runDigest();
             await deps.services.outbox.runOnce();
           } catch (e) {
             console.error('[hoodline] outbox worker:', e instanceof Error ? e.message : e);

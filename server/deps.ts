@@ -5,6 +5,7 @@ import type { Config } from './config';
 import type { Db } from './db/client';
 import type { Mailer, ReceivedMail } from './mail/mailer';
 import { authService } from './modules/auth/service';
+import { dueService } from './modules/due/service';
 import { outboxService } from './modules/outbox/service';
 import { peopleService } from './modules/people/service';
 import { unitsService } from './modules/units/service';
@@ -23,6 +24,7 @@ export function buildServices(db: Db, config: Config, drawings: ReadonlyMap<stri
     people: peopleService(db),
     units: unitsService(db, drawings),
     outbox: outboxService(db, mailer),
+    due: dueService(db),
   };
 }
 

@@ -3,6 +3,7 @@ import { sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { people, railroadSettings, unitTypes, units, yards } from '../db/schema';
 import { BCRYPT_COST } from '../modules/auth/service';
+import { addDays, civilDateInZone } from '../../shared/checks/civil-date';
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RAILROAD, DEMO_UNIT_TYPES, DEMO_UNITS, DEMO_YARDS } from './demo-data';
 
 export interface DrawingDims {
@@ -11,8 +12,8 @@ export interface DrawingDims {
   axleCount: number;
 }
 
-/** Civil date `days` before `today` (YYYY-MM-DD), for believable last-test dates. */
-const daysAgo = (today: Date, days: number) => new Date(today.getTime() - days * 86400_000).toISOString().slice(0, 10);
+/** Calendar day `days` before today in the railroad's zone, for believable last-test dates. */
+const daysAgo = (now: Date, days: number) => addDays(civilDateInZone(now, DEMO_RAILROAD.timeZone), -days);
 
 /**
  * Seeds the demo railroad once. Idempotent: when the railroad row exists nothing is touched, so a

@@ -6,6 +6,7 @@ import { createDb, migrateDb, type Db } from '../../server/db/client';
 import { loadDrawingsFromDir } from '../../server/drawings/load';
 import { seedDemo } from '../../server/seed/demo';
 import type pg from 'pg';
+import type { Mailer } from '../../server/mail/mailer';
 
 export const TEST_DB_URL = process.env.TEST_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/hoodline_test';
 export const DEMO_PASSWORD = 'hoodline-demo';
@@ -74,17 +75,19 @@ export async function resetDb(db: Db) {
   if (names) await db.execute(sql.raw(`truncate ${names} restart identity cascade`));
 }
 
-export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+export async function startTestApp(env: Record<string, string> = {}, opts: { fresh?: boolean; mailer?: Mailer } = {}): Promise<TestApp> {
   const config: Config = loadConfig({ ...process.env, NODE_ENV: 'test', DATABASE_URL: TEST_DB_URL, PORT: '0', FAKE_SMTP: '0', WORKERS: '0', LOGIN_RATE_LIMIT: '1000', ...env });
   const { db, pool } = createDb(TEST_DB_URL);
-  await migrateDb(db);
-  await resetDb(db);
   const drawings = loadDrawingsFromDir('diagrams');
-  await seedDemo(db, (k) => {
-    const d = drawings.get(k)!;
-    return { lengthIn: d.lengthIn, widthIn: d.widthIn, axleCount: d.axleCount };
-  });
-  const handle = createApp({ db, pool, config, drawings });
+  if (opts.fresh !== false) {
+    await migrateDb(db);
+    await resetDb(db);
+    await seedDemo(db, (k) => {
+      const d = drawings.get(k)!;
+      return { lengthIn: d.lengthIn, widthIn: d.widthIn, axleCount: d.axleCount };
+    });
+  }
+  const handle = createApp({ db, pool, config, drawings, mailer: opts.mailer });
   await handle.start();
   const server: Server = await new Promise((r) => {
     const s = handle.app.listen(0, '127.0.0.1', () => r(s));
@@ -115,4 +118,14 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
 export async function count(db: Db, table: string): Promise<number> {
   const r = await db.execute<{ n: string }>(sql.raw(`select count(*)::text as n from "${table}"`));
   return Number(r.rows[0].n);
+}
+
+/** Starts a daily inspection on a unit and pins one finding; returns both. */
+export async function pinFinding(c: Client, roadNumber: string, body: Record<string, unknown>) {
+  const units = (await c.get(`/api/units?q=${encodeURIComponent(roadNumber)}`)).body.items;
+  const unit = units.find((u: any) => u.roadNumber === roadNumber);
+  const insp = await c.post('/api/inspections', { unitId: unit.id, kind: 'daily', frontEndSeen: unit.frontEnd });
+  const f = await c.post(`/api/inspections/${insp.body.id}/findings`, body);
+  if (f.status !== 201) throw new Error(`pin failed: ${f.status} ${JSON.stringify(f.body)}`);
+  return { unit, inspection: insp.body, finding: f.body };
 }
