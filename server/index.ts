@@ -24,12 +24,7 @@ export async function startServer(config: Config, opts: { seed: boolean; log?: (
   try {
     await migrateDb(db);
     if (opts.seed) {
-      const dims = (key: string) => {
-        const d = drawings.get(key);
-        if (!d) throw new Error(`No drawing for unit type ${key}`);
-        return { lengthIn: d.lengthIn, widthIn: d.widthIn, axleCount: d.axleCount };
-      };
-      if (await seedDemo(db, dims)) log('Seeded the demo railroad.');
+      if (await seedDemo(db, drawings)) log('Seeded the demo railroad with four months of history.');
     }
   } catch (e) {
     await pool.end();

@@ -1,16 +1,13 @@
 import bcrypt from 'bcryptjs';
 import { sql } from 'drizzle-orm';
+import type { Drawing } from '../../shared/drawings/types';
 import type { Db } from '../db/client';
+import { seedHistory } from './demo-history';
 import { people, railroadSettings, unitTypes, units, yards } from '../db/schema';
 import { BCRYPT_COST } from '../modules/auth/service';
 import { addDays, civilDateInZone } from '../../shared/checks/civil-date';
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_RAILROAD, DEMO_UNIT_TYPES, DEMO_UNITS, DEMO_YARDS } from './demo-data';
 
-export interface DrawingDims {
-  lengthIn: number;
-  widthIn: number;
-  axleCount: number;
-}
 
 /** Calendar day `days` before today in the railroad's zone, for believable last-test dates. */
 const daysAgo = (now: Date, days: number) => addDays(civilDateInZone(now, DEMO_RAILROAD.timeZone), -days);
@@ -19,7 +16,13 @@ const daysAgo = (now: Date, days: number) => addDays(civilDateInZone(now, DEMO_R
  * Seeds the demo railroad once. Idempotent: when the railroad row exists nothing is touched, so a
  * second start neither duplicates nor wipes; an advisory lock keeps two starting servers apart.
  */
-export async function seedDemo(db: Db, dims: (key: string) => DrawingDims, now = new Date()): Promise<boolean> {
+export async function seedDemo(db: Db, drawings: ReadonlyMap<string, Drawing>, opts: { now?: Date; historyDays?: number } = {}): Promise<boolean> {
+  const now = opts.now ?? new Date();
+  const dims = (key: string) => {
+    const d = drawings.get(key);
+    if (!d) throw new Error(`No drawing for unit type ${key}`);
+    return { lengthIn: d.lengthIn, widthIn: d.widthIn, axleCount: d.axleCount };
+  };
   return db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(4242001)`);
     const existing = await tx.select({ id: railroadSettings.id }).from(railroadSettings).limit(1);
@@ -46,6 +49,8 @@ export async function seedDemo(db: Db, dims: (key: string) => DrawingDims, now =
         lastCmCheckOn: u.cm ? daysAgo(now, 28) : null,
       })),
     );
+    const days = opts.historyDays ?? 120;
+    if (days > 0) await seedHistory(tx, { drawings, now, timeZone: DEMO_RAILROAD.timeZone, days });
     return true;
   });
 }

@@ -75,17 +75,14 @@ export async function resetDb(db: Db) {
   if (names) await db.execute(sql.raw(`truncate ${names} restart identity cascade`));
 }
 
-export async function startTestApp(env: Record<string, string> = {}, opts: { fresh?: boolean; mailer?: Mailer } = {}): Promise<TestApp> {
+export async function startTestApp(env: Record<string, string> = {}, opts: { fresh?: boolean; mailer?: Mailer; historyDays?: number } = {}): Promise<TestApp> {
   const config: Config = loadConfig({ ...process.env, NODE_ENV: 'test', DATABASE_URL: TEST_DB_URL, PORT: '0', FAKE_SMTP: '0', WORKERS: '0', LOGIN_RATE_LIMIT: '1000', ...env });
   const { db, pool } = createDb(TEST_DB_URL);
   const drawings = loadDrawingsFromDir('diagrams');
   if (opts.fresh !== false) {
     await migrateDb(db);
     await resetDb(db);
-    await seedDemo(db, (k) => {
-      const d = drawings.get(k)!;
-      return { lengthIn: d.lengthIn, widthIn: d.widthIn, axleCount: d.axleCount };
-    });
+    await seedDemo(db, drawings, { historyDays: opts.historyDays ?? 0 });
   }
   const handle = createApp({ db, pool, config, drawings, mailer: opts.mailer });
   await handle.start();
