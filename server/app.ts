@@ -10,7 +10,9 @@ import type { Config } from './config';
 import type { Db } from './db/client';
 import { buildServices, buildStorage, type Deps } from './deps';
 import { smtpMailer, startFakeSmtp, type Mailer, type ReceivedMail } from './mail/mailer';
-import { AppError, errorHandler } from './http/errors';
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import { AppError, errorBody, errorHandler } from './http/errors';
+import { idempotency } from './http/idempotency';
 import { mountRoutes, type RouteDef } from './http/routes';
 import { checksRoutes } from './modules/checks/routes';
 import { dueRoutes } from './modules/due/routes';
@@ -132,7 +134,16 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
     ...outboxRoutes(deps),
   ];
   const api = express.Router();
-  mountRoutes(api, defs);
+  const writeLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.WRITE_RATE_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    // Per person when signed in (a yard's tablets may share one address), else per address.
+    keyGenerator: (req) => (req.person ? `p:${req.person.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`),
+    handler: (_req, res) => void res.status(429).json(errorBody('rate_limited', 'Too many changes in a minute; wait a moment and try again')),
+  });
+  mountRoutes(api, defs, { writeLimiter, idempotency: idempotency(db) });
   app.use('/api', api);
   app.use('/api', (_req, _res, next) => next(new AppError('not_found', 'No such API route')));
 

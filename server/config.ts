@@ -19,6 +19,8 @@ const EnvSchema = z.object({
   MAIL_FROM: z.string().default('Hoodline <hoodline@railroad.example>'),
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(20),
   LOGIN_RATE_WINDOW_S: z.coerce.number().int().positive().default(900),
+  /** State-changing requests a person may make per minute. */
+  WRITE_RATE_LIMIT: z.coerce.number().int().positive().default(600),
   LOCKOUT_AFTER: z.coerce.number().int().positive().default(8),
   LOCKOUT_MINUTES: z.coerce.number().int().positive().default(15),
   PHOTO_DIR: z.string().default('.data/photos'),

@@ -39,6 +39,8 @@ export interface RouteDef<BS extends ZodType | undefined = any, QS extends ZodTy
   params?: PS;
   /** The route takes multipart/form-data instead of JSON. */
   multipart?: RequestHandler;
+  /** The route keeps its own idempotency inside its transaction; skip the generic Idempotency-Key layer. */
+  selfIdempotent?: boolean;
   /** Extra middleware run after the access check, before the body is read (e.g. a rate limiter). */
   before?: RequestHandler[];
   handler: (ctx: RouteContext<Infer<BS>, Infer<QS>, Infer<PS>>) => Promise<RouteResult> | RouteResult;
@@ -87,30 +89,41 @@ function parsePart<S extends ZodType | undefined>(schema: S, value: unknown, whe
   return r.data as Infer<S>;
 }
 
+export interface MountOptions {
+  /** Runs on every state-changing route after the access check (rate limit per person). */
+  writeLimiter?: RequestHandler;
+  /** The Idempotency-Key layer for state-changing routes. */
+  idempotency?: RequestHandler;
+}
+
 /** Mounts route definitions with the one access mechanism, origin check, content-type check and validation. */
-export function mountRoutes(router: Router, defs: readonly RouteDef[]): void {
+export function mountRoutes(router: Router, defs: readonly RouteDef[], opts: MountOptions = {}): void {
   for (const def of defs) {
     const chain: RequestHandler[] = [];
-    if (STATE_CHANGING.has(def.method)) {
-      chain.push((req, _res, next) => {
-        if (!checkSameOrigin(req)) return next(new AppError('forbidden', 'Requests from another site are refused'));
-        const len = Number(req.get('content-length') ?? 0);
-        const hasBody = len > 0 || req.get('transfer-encoding') !== undefined;
-        if (hasBody || def.body || def.multipart) {
-          const ok = def.multipart ? req.is('multipart/form-data') : req.is('application/json');
-          if (hasBody && !ok) {
-            return next(new AppError('unsupported_media_type', def.multipart ? 'Send the file as multipart/form-data' : 'Send the body as application/json'));
-          }
-        }
-        next();
-      });
+    const changing = STATE_CHANGING.has(def.method);
+    if (changing) {
+      chain.push((req, _res, next) => (checkSameOrigin(req) ? next() : next(new AppError('forbidden', 'Requests from another site are refused'))));
     }
+    // Who may call comes before what they sent: a stranger learns nothing from a 415 or a 400.
     chain.push((req, _res, next) => {
       const verdict = isAllowed(def.access, req.person ?? null);
       if (verdict === 'unauthenticated') return next(new AppError('unauthenticated', 'Sign in first'));
       if (verdict === 'forbidden') return next(new AppError('forbidden', 'Your role cannot do this'));
       next();
     });
+    if (changing) {
+      chain.push((req, _res, next) => {
+        const len = Number(req.get('content-length') ?? 0);
+        const hasBody = len > 0 || req.get('transfer-encoding') !== undefined;
+        const ok = def.multipart ? req.is('multipart/form-data') : req.is('application/json');
+        if (hasBody && !ok) {
+          return next(new AppError('unsupported_media_type', def.multipart ? 'Send the file as multipart/form-data' : 'Send the body as application/json'));
+        }
+        next();
+      });
+      if (opts.writeLimiter) chain.push(opts.writeLimiter);
+      if (opts.idempotency && !def.selfIdempotent) chain.push(opts.idempotency);
+    }
     chain.push(...(def.before ?? []));
     if (def.multipart) chain.push(def.multipart);
     chain.push(async (req: Request, res: Response, next: NextFunction) => {

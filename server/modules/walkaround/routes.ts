@@ -64,6 +64,7 @@ export function walkaroundRoutes(deps: Deps): RouteDef[] {
       path: '/inspections',
       access: CAN.inspect,
       summary: 'Start (or resume) a daily or periodic inspection of a unit',
+      selfIdempotent: true,
       body: StartInspectionBody,
       handler: async ({ req, body, person, ip }) => {
         const r = await svc.start(person, ip, { ...body, idempotencyKey: idemKey(req, body.idempotencyKey) });
@@ -92,6 +93,7 @@ export function walkaroundRoutes(deps: Deps): RouteDef[] {
       path: '/inspections/:id/findings',
       access: CAN.inspect,
       summary: 'Pin a finding on a part',
+      selfIdempotent: true,
       params: IdParams,
       body: FindingBody,
       handler: async ({ req, params, body, person, ip }) => {
