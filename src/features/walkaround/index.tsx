@@ -1,6 +1,27 @@
-import { Placeholder } from '../../components/placeholder';
+import { Route, Routes } from 'react-router-dom';
+import { RecordPage } from './components/record-page';
+import { SignScreen } from './components/sign-screen';
+import { StartScreen } from './components/start-screen';
+import { TagPage } from './components/tag-page';
+import { WalkScreen } from './components/walk-screen';
 
-/** Screen entry, lazy-loaded by the router. */
-export default function Screen() {
-  return <Placeholder title="Walkaround" what="This screen is being built." />;
+/** Walkaround: start, walk the routine, sign, print the record and the tag. Mounted at /walkaround/*. */
+export default function Walkaround() {
+  return (
+    <Routes>
+      <Route index element={<StartScreen />} />
+      <Route path="inspections/:id" element={<WalkScreen />} />
+      <Route path="inspections/:id/sign" element={<SignScreen />} />
+      <Route path="inspections/:id/record" element={<RecordPage />} />
+      <Route path="units/:unitId/tag" element={<TagPage />} />
+      <Route
+        path="*"
+        element={
+          <p role="alert" className="text-xl">
+            No such walkaround page.
+          </p>
+        }
+      />
+    </Routes>
+  );
 }
