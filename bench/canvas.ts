@@ -86,7 +86,7 @@ async function framePart(tmp: string): Promise<FrameResult> {
   const { drawing, source } = pickDrawing();
   console.log(`drawing: ${drawing.name} (${source}), plan parts: ${drawing.views.find((v) => v.key === 'plan')?.parts.length}`);
   const out = join(tmp, 'bench');
-  await build({ configFile: join(ROOT, 'bench/vite.canvas.config.ts'), build: { outDir: out, emptyOutDir: true }, logLevel: 'warn' });
+  await build({ configFile: join(ROOT, 'bench/vite.canvas.config.ts'), build: { outDir: out, emptyOutDir: true }, logLevel: 'error' });
   writeFileSync(join(out, 'drawing.json'), JSON.stringify(drawing));
 
   const { server, url } = await serve(out);

@@ -18,6 +18,8 @@ import type { DrawingCanvasHandle, DrawingPin } from '../../src/features/drawing
 const drawing = sampleSixAxleDrawing();
 const W = 800, H = 400;
 const layouts = { short_hood: unitLayout(drawing, 'short_hood'), long_hood: unitLayout(drawing, 'long_hood') };
+// A real software canvas on a busy 2-core machine: allow more than the default 5 s.
+vi.setConfig({ testTimeout: 20_000 });
 
 /** Where a view point is drawn at the fitted camera, computed from the pure transforms (not from the component). */
 function screenOf(p: ViewCoord, fe: FrontEnd, mode: DrawingMode = 'as_built', view: ViewKey = 'plan') {
@@ -257,7 +259,7 @@ describe('DrawingCanvas: orientation words and the flip', () => {
     const target = screenOf({ u: SAMPLE_LENGTH, v: 0 }, 'long_hood').sx;
     // The tween starts from the old place …
     expect(front().x()).toBeLessThan(target);
-    await act(() => new Promise((r) => setTimeout(r, 500)));
+    await act(() => new Promise((r) => setTimeout(r, 800)));
     // … and ends beyond the long hood end (in the overlay group's coordinates, offset by the camera).
     const groupX = overlayOrigin();
     expect(front().x() + groupX).toBeGreaterThan(target);

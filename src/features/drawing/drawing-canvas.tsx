@@ -332,7 +332,7 @@ export function DrawingCanvas(props: DrawingCanvasProps) {
         data-scale={camera.scale.toFixed(4)}
         onKeyDown={onKeyDown}
         onBlur={() => setFocusId(null)}
-        className="h-full w-full overflow-hidden rounded-md border-2 border-rule focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-accent"
+        className="h-full w-full overflow-hidden rounded-md focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-accent"
         style={{ background: palette.paper, touchAction: 'none', cursor: 'grab' }}
       >
         <Stage ref={stageRef} width={viewport.width} height={viewport.height} listening={false}>
@@ -352,6 +352,8 @@ export function DrawingCanvas(props: DrawingCanvasProps) {
           />
         </Stage>
       </div>
+      {/* The frame is drawn over the canvas so the canvas keeps the full width and height. */}
+      <div aria-hidden="true" className="pointer-events-none absolute inset-0 rounded-md border-2 border-rule" />
       <div data-canvas-controls className="absolute top-2 right-2 flex gap-2">
         <button type="button" className="btn bg-paper px-3" aria-label="Zoom out" onClick={() => zoomBy(1 / KEY_ZOOM)}>
           −
