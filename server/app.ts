@@ -83,7 +83,8 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
   );
 
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: config.NODE_ENV === 'test' ? false : 900 });
+  // A session lasts one 12-hour shift from sign-in; not touching it on every request saves a write per request.
+  const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, disableTouch: true, pruneSessionInterval: config.NODE_ENV === 'test' ? false : 900 });
   app.use(
     '/api',
     session({
@@ -92,7 +93,7 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       cookie: { httpOnly: true, sameSite: 'lax', secure: config.TRUST_PROXY, maxAge: 12 * 3600 * 1000 },
     }),
   );

@@ -44,8 +44,11 @@ export async function startServer(config: Config, opts: { seed: boolean; log?: (
     server,
     url,
     async stop() {
-      await new Promise<void>((r) => server.close(() => r()));
-      server.closeAllConnections?.();
+      // Stop taking requests, let the ones in flight finish, then close the database.
+      const closed = new Promise<void>((r) => server.close(() => r()));
+      server.closeIdleConnections();
+      await Promise.race([closed, new Promise((r) => setTimeout(r, 5000))]);
+      server.closeAllConnections();
       await handle.close();
       await pool.end();
     },

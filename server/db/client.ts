@@ -12,7 +12,7 @@ export type DbOrTx = Db | Tx;
 // DATE columns come back as 'YYYY-MM-DD' strings, never shifted by the server's zone.
 pg.types.setTypeParser(1082, (v) => v);
 
-export function createDb(url: string, max = 10): { db: Db; pool: pg.Pool } {
+export function createDb(url: string, max = Number(process.env.DB_POOL_MAX ?? 20)): { db: Db; pool: pg.Pool } {
   const pool = new pg.Pool({ connectionString: url, max });
   pool.on('error', () => {
     /* idle client errors (e.g. server restart) are retried by the next query */

@@ -1,0 +1,87 @@
+/**
+ * `npm run bench:load`: 50 connections for 20 s of mixed reads and finding writes, on loopback, against
+ * the production build served by one Hoodline process, in its own database on the throwaway cluster.
+ * Prints requests per second, p50/p99 latency and the error count (goal: 0 errors, p99 < 100 ms).
+ */
+import autocannon from 'autocannon';
+import { spawn, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import pg from 'pg';
+import { ensurePackages, pg as pgctl } from '../scripts/lib/system';
+
+const PGPORT = process.env.TEST_PGPORT ?? '54339';
+const DB = 'hoodline_load';
+const PORT = Number(process.env.BENCH_PORT ?? 3177);
+const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
+const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
+const url = `postgres://postgres@127.0.0.1:${PGPORT}/${DB}`;
+
+async function main() {
+  ensurePackages(['postgresql']);
+  const env = { PGPORT, PG_DATA_DIR: `${process.cwd()}/.data/test-pg`, PG_RUN_DIR: `${process.cwd()}/.data/test-pg-run`, PG_FSYNC: 'off', PG_DATABASES: 'postgres' };
+  if (pgctl('start', env) !== 0) process.exit(1);
+  const admin = new pg.Client({ connectionString: `postgres://postgres@127.0.0.1:${PGPORT}/postgres` });
+  await admin.connect();
+  await admin.query(`drop database if exists ${DB} with (force)`);
+  await admin.query(`create database ${DB}`);
+  await admin.end();
+  if (!fs.existsSync('dist/index.html')) spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
+
+  // The production server: migrates and seeds the demo railroad (with its history) on start.
+  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: url, PORT: String(PORT), SERVE_DIST: '1', SEED_DEMO: '1', FAKE_SMTP: '0', WORKERS: '0', WRITE_RATE_LIMIT: '1000000', SESSION_SECRET: 'bench-only-secret-0123456789' },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  await new Promise<void>((resolve, reject) => {
+    const t = setTimeout(() => reject(new Error('server did not start')), 120_000);
+    server.stdout!.on('data', (d) => String(d).includes('listening') && (clearTimeout(t), resolve()));
+    server.on('exit', (c) => reject(new Error(`server exited ${c}`)));
+  });
+  const base = `http://127.0.0.1:${PORT}`;
+  try {
+    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'inspector@demo.example', password: 'hoodline-demo' }) });
+    const cookie = login.headers.getSetCookie()[0].split(';')[0];
+    const h = { cookie, 'content-type': 'application/json' };
+    const units = (await (await fetch(`${base}/api/units`, { headers: h })).json()).items;
+    // Several inspections at once, as a yard's inspectors would have, so writes do not all queue on one record.
+    const sixAxle = units.filter((u: { unitTypeKey: string }) => u.unitTypeKey === 'six_axle_road');
+    const unit = sixAxle[0];
+    const inspections: { id: string }[] = [];
+    for (const u of sixAxle) inspections.push(await (await fetch(`${base}/api/inspections`, { method: 'POST', headers: h, body: JSON.stringify({ unitId: u.id, kind: 'periodic', frontEndSeen: u.frontEnd }) })).json());
+    const insp = inspections[0];
+    let n = 0;
+    const result = await autocannon({
+      url: base,
+      connections: CONNECTIONS,
+      duration: DURATION,
+      headers: h,
+      requests: [
+        { method: 'GET', path: '/api/units' },
+        { method: 'GET', path: `/api/units/${unit.id}/layout` },
+        { method: 'GET', path: `/api/repairs` },
+        { method: 'GET', path: `/api/inspections/${insp.id}` },
+        {
+          method: 'POST',
+          path: `/api/inspections/${insp.id}/findings`,
+          setupRequest: (req) => {
+            n++;
+            return { ...req, path: `/api/inspections/${inspections[n % inspections.length].id}/findings`, headers: { ...h, 'idempotency-key': `bench-${process.pid}-${n}` }, body: JSON.stringify({ partId: 'pl-traction_motor_2', view: 'plan', x: 170 + (n % 6), y: (n % 30) - 15, defectType: 'traction_motor_other', note: `load ${n}` }) };
+          },
+        },
+      ],
+    });
+    const errors = result.errors + result.timeouts + result.non2xx;
+    console.log(`\nbench:load — ${CONNECTIONS} connections, ${DURATION} s, mixed reads and finding writes (1 write in 5), loopback, production build`);
+    console.log(`requests/s: ${result.requests.average.toFixed(0)}  (total ${result.requests.total})`);
+    console.log(`latency p50: ${result.latency.p50} ms  p99: ${result.latency.p99} ms  (goal p99 < 100 ms)`);
+    console.log(`errors: ${errors} (connection ${result.errors}, timeouts ${result.timeouts}, non-2xx ${result.non2xx})  (goal 0)`);
+    console.log(`findings written: ${n}`);
+  } finally {
+    server.kill('SIGTERM');
+  }
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});
