@@ -198,8 +198,10 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
                    from sel, unit_types t where t.key = $1 group by 1, 2) c) as cells,
         (select coalesce(json_agg(json_build_object('month', m.month, 'findings', m.n, 'repeats', m.r) order by m.month), '[]')
            from (select a.month, a.n, coalesce(b.r, 0) as r
-                   from (select to_char(day, 'YYYY-MM') as month, count(*)::int as n from sel group by 1) a
-                   left join (select to_char(day, 'YYYY-MM') as month, count(*)::int as r from reps group by 1) b using (month)) m) as months,
+                   from (select to_char(m0, 'YYYY-MM') as month, n
+                           from (select date_trunc('month', day) as m0, count(*)::int as n from sel group by 1) a0) a
+                   left join (select to_char(m0, 'YYYY-MM') as month, r
+                                from (select date_trunc('month', day) as m0, count(*)::int as r from reps group by 1) b0) b using (month)) m) as months,
         (select coalesce(json_agg(json_build_object('unitId', w.unit_id, 'roadNumber', un.road_number, 'frontEnd', un.front_end,
                   'repeats', w.r, 'findings', w.n) order by w.r desc, un.road_number), '[]')
            from (select unit_id, sum(r)::int as r, sum(n)::int as n from lu group by unit_id having sum(r) > 0
