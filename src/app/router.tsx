@@ -15,6 +15,7 @@ const Units = lazy(() => import('../features/units'));
 const HotSpots = lazy(() => import('../features/hot-spots'));
 const Lab = lazy(() => import('../features/orientation-lab'));
 const Outbox = lazy(() => import('../features/outbox'));
+const Admin = lazy(() => import('../features/admin'));
 
 export const router = createBrowserRouter([
   { path: '/sign-in', element: <LoginPage /> },
@@ -32,6 +33,7 @@ export const router = createBrowserRouter([
       { path: 'hot-spots/*', element: <RequireCap cap="readFleet"><HotSpots /></RequireCap> },
       { path: 'lab/*', element: <RequireCap cap="takeQuiz"><Lab /></RequireCap> },
       { path: 'outbox/*', element: <RequireCap cap="readOutbox"><Outbox /></RequireCap> },
+      { path: 'railroad/*', element: <RequireCap cap="administer"><Admin /></RequireCap> },
       { path: '*', element: <NotFound /> },
     ],
   },

@@ -17,6 +17,7 @@ export const SCREENS: ScreenDef[] = [
   { path: '/lab', title: 'Orientation lab', cap: 'takeQuiz', blurb: 'How front, left, right and the numbers follow the F.' },
   { path: '/people', title: 'People', cap: 'administer', blurb: 'Accounts, roles and locks.' },
   { path: '/outbox', title: 'Outbox', cap: 'readOutbox', blurb: 'E-mail Hoodline has sent or is retrying.' },
+  { path: '/railroad', title: 'Railroad', cap: 'administer', blurb: 'Settings and the audit log.' },
 ];
 
 export const HOME_BY_ROLE: Record<Role, string> = {
