@@ -265,11 +265,46 @@ describe('DrawingCanvas: orientation words and the flip', () => {
     expect(front().x() + groupX).toBeGreaterThan(target);
   });
 
-  it('labels the ends FRONT / REAR and the sides LEFT / RIGHT in the plan, and numbers the running gear', () => {
+  it('front first: when the F moves the drawing turns over about its middle (~300 ms) and FRONT stays at the left', async () => {
+    const { rerenderWith, ref } = setup({ mode: 'front_first' });
+    const cam = () => stage().findOne('.camera')!;
+    const frontAbs = () => stage().findOne('.marker-front')!.x() + overlayOrigin();
+    const frontBefore = frontAbs();
+    expect(cam().scaleX()).toBeGreaterThan(0);
+    rerenderWith('long_hood', 'front_first');
+    // The turn starts from the old picture …
+    expect(cam().scaleX()).toBeGreaterThan(0);
+    await act(() => new Promise((r) => setTimeout(r, 800)));
+    // … and ends mirrored end for end (and, in the plan, side for side) exactly where the camera says.
+    const c = ref.current!.camera();
+    expect(cam().scaleX()).toBeCloseTo(-c.scale, 9);
+    expect(cam().scaleY()).toBeCloseTo(c.scale, 9);
+    expect(cam().x()).toBeCloseTo(c.ox, 9);
+    expect(frontAbs()).toBeCloseTo(frontBefore, 6);
+  });
+
+  it('labels the ends FRONT / REAR and the sides LEFT / RIGHT in the plan', () => {
     setup();
     for (const role of ['front', 'rear', 'left', 'right']) expect(stage().findOne(`.marker-${role}`)).toBeTruthy();
     const words = stage().find('Text').map((t) => (t as Konva.Text).text());
     expect(words).toEqual(expect.arrayContaining(['FRONT', 'REAR', 'LEFT', 'RIGHT']));
+  });
+
+  it('writes the number beside each axle, counted from the F, and renumbers on the flip', () => {
+    const { rerenderWith } = setup();
+    const numbers = () => {
+      const placed = stage().findOne('.numerals')!.getAttr('numerals') as { key: string; text: string; x: number; y: number }[];
+      return Object.fromEntries(placed.filter((n) => n.key.startsWith('pl-axle-')).map((n) => [n.key, n]));
+    };
+    const short = numbers();
+    expect(Object.keys(short)).toHaveLength(6);
+    for (let i = 1; i <= 6; i++) expect(short[`pl-axle-${i}`].text).toBe(String(i));
+    // Painted where placed (relative to the camera origin).
+    const n1 = short['pl-axle-1'];
+    expect(pixel('overlay-layer', { sx: n1.x + overlayOrigin(), sy: n1.y + (stage().findOne('.overlay-layer') as Konva.Layer).getChildren()[0].y() })[3]).toBeGreaterThan(0);
+    rerenderWith('long_hood');
+    const long = numbers();
+    for (let i = 1; i <= 6; i++) expect(long[`pl-axle-${i}`].text).toBe(String(7 - i));
   });
 });
 

@@ -336,8 +336,8 @@ export function DrawingCanvas(props: DrawingCanvasProps) {
         style={{ background: palette.paper, touchAction: 'none', cursor: 'grab' }}
       >
         <Stage ref={stageRef} width={viewport.width} height={viewport.height} listening={false}>
-          <PaperLayer shapes={paperShapes} extent={extent} palette={palette} orient={orient} camera={camera} lineScale={lineScale} heat={heat} />
-          <PinsLayer pins={pinBatches} palette={palette} orient={orient} camera={camera} viewport={viewport} lineScale={lineScale} />
+          <PaperLayer shapes={paperShapes} extent={extent} palette={palette} orient={orient} camera={camera} lineScale={lineScale} heat={heat} reduceMotion={reduceMotion} />
+          <PinsLayer pins={pinBatches} palette={palette} orient={orient} camera={camera} viewport={viewport} lineScale={lineScale} reduceMotion={reduceMotion} />
           <OverlayLayer
             palette={palette}
             orient={orient}

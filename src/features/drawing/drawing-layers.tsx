@@ -9,7 +9,7 @@ import Konva from 'konva';
 import type { Context } from 'konva/lib/Context';
 import type { Group as KonvaGroup } from 'konva/lib/Group';
 import type { Shape as KonvaShape } from 'konva/lib/Shape';
-import { memo, useCallback, useLayoutEffect, useRef, type ReactNode } from 'react';
+import { memo, useCallback, useLayoutEffect, useRef, type ReactNode, type RefObject } from 'react';
 import { Group, Layer, Rect, Shape, Text } from 'react-konva';
 import type { Camera, OrientationMarker, Viewport, ViewOrientation } from '../../../shared/drawings/screen';
 import type { PlacedNumeral } from '../../../shared/drawings/screen-labels';
@@ -17,6 +17,9 @@ import type { Box, PartShape, Shape as DrawingShape } from '../../../shared/draw
 import { FONT_STACK, paintDrawing, paintNumerals, paintPins, tracePartShape, type PinBatches } from './paint';
 import { withAlpha, type Palette } from './palette';
 import type { DrawingHeat } from './types';
+
+/** The flip of the F: markers glide and a turned view turns over in this time (respecting reduced motion). */
+const FLIP_SECONDS = 0.3;
 
 /** Larger caches cost too much memory on a tablet; past these the drawing is painted live (still fast, and sharp). */
 const MAX_CACHE_SIDE_PX = 8192;
@@ -31,10 +34,14 @@ export interface PaperLayerProps {
   /** The scale the linework is drawn (and cached) for: the camera's, once a zoom has settled. */
   lineScale: number;
   heat?: DrawingHeat;
+  reduceMotion: boolean;
 }
 
-export const PaperLayer = memo(function PaperLayer({ shapes, extent, palette, orient, camera, lineScale, heat }: PaperLayerProps) {
+export const PaperLayer = memo(function PaperLayer({ shapes, extent, palette, orient, camera, lineScale, heat, reduceMotion }: PaperLayerProps) {
   const shape = useRef<KonvaShape>(null);
+  const group = useRef<KonvaGroup>(null);
+  const place = { x: camera.ox, y: camera.oy, scaleX: orient.su * camera.scale, scaleY: orient.sv * camera.scale };
+  useTurnOver(group, orient, place, reduceMotion, (extent.umin + extent.umax) / 2);
   const sceneFunc = useCallback(
     (ctx: Context) => paintDrawing(ctx._context, shapes, palette, lineScale, orient, heat),
     [shapes, palette, lineScale, orient, heat],
@@ -50,7 +57,7 @@ export const PaperLayer = memo(function PaperLayer({ shapes, extent, palette, or
   }, [sceneFunc, extent, lineScale]);
   return (
     <Layer listening={false} name="drawing-layer">
-      <Group name="camera" x={camera.ox} y={camera.oy} scaleX={orient.su * camera.scale} scaleY={orient.sv * camera.scale}>
+      <Group ref={group} name="camera" x={camera.ox} y={camera.oy} scaleX={orient.su * camera.scale} scaleY={orient.sv * camera.scale}>
         <Shape ref={shape} name="drawing" sceneFunc={sceneFunc} listening={false} perfectDrawEnabled={false} />
       </Group>
     </Layer>
@@ -65,13 +72,17 @@ export interface PinsLayerProps {
   viewport: Viewport;
   /** The scale the pins are laid out (and cached) for; while a zoom is under way the cached picture is stretched. */
   lineScale: number;
+  reduceMotion: boolean;
 }
 
 /** Pins stand out this far (CSS px) from their point, halo included. */
 const PIN_REACH_PX = 12;
 
-export const PinsLayer = memo(function PinsLayer({ pins, palette, orient, camera, viewport, lineScale }: PinsLayerProps) {
+export const PinsLayer = memo(function PinsLayer({ pins, palette, orient, camera, viewport, lineScale, reduceMotion }: PinsLayerProps) {
   const shape = useRef<KonvaShape>(null);
+  const group = useRef<KonvaGroup>(null);
+  const k = camera.scale / lineScale;
+  useTurnOver(group, orient, { x: camera.ox, y: camera.oy, scaleX: k, scaleY: k }, reduceMotion);
   const cached = useRef(false);
   const cam = useRef(camera);
   cam.current = camera;
@@ -104,43 +115,104 @@ export const PinsLayer = memo(function PinsLayer({ pins, palette, orient, camera
     else node.clearCache();
     node.getLayer()?.batchDraw();
   }, [sceneFunc, pins, orient, lineScale]);
-  const k = camera.scale / lineScale;
   return (
     <Layer listening={false} name="pins-layer" visible={pins.count > 0}>
-      <Group x={camera.ox} y={camera.oy} scaleX={k} scaleY={k}>
+      <Group ref={group} x={camera.ox} y={camera.oy} scaleX={k} scaleY={k}>
         <Shape ref={shape} name="pins" sceneFunc={sceneFunc} listening={false} perfectDrawEnabled={false} />
       </Group>
     </Layer>
   );
 });
 
-/** A node that glides from where it was to where it is when `flipKey` changes (the F moved). */
-function Glide({ x, y, flipKey, still, children, name }: { x: number; y: number; flipKey: string; still: boolean; children: ReactNode; name?: string }) {
+/**
+ * A node that glides from where it was on screen to where it is when `flipKey` changes (the F
+ * moved). Positions are relative to the camera origin (`ox`, `oy`), which may itself jump when the
+ * view turns round, so the glide starts from the old place on screen, not the old relative numbers.
+ */
+function Glide(props: { x: number; y: number; ox: number; oy: number; flipKey: string; still: boolean; children: ReactNode; name?: string }) {
+  const { x, y, ox, oy, flipKey, still, children, name } = props;
   const node = useRef<KonvaGroup>(null);
-  const last = useRef<{ x: number; y: number; flipKey: string } | null>(null);
+  const last = useRef<{ sx: number; sy: number; flipKey: string } | null>(null);
   useLayoutEffect(() => {
     const g = node.current;
     const prev = last.current;
-    last.current = { x, y, flipKey };
+    last.current = { sx: x + ox, sy: y + oy, flipKey };
     if (!g) return;
     g.position({ x, y });
     g.opacity(1);
     if (!prev || prev.flipKey === flipKey || still) return;
-    g.position({ x: prev.x, y: prev.y });
+    g.position({ x: prev.sx - ox, y: prev.sy - oy });
     g.opacity(0.25);
-    const tween = new Konva.Tween({ node: g, duration: 0.3, x, y, opacity: 1, easing: Konva.Easings.EaseInOut });
+    const tween = new Konva.Tween({ node: g, duration: FLIP_SECONDS, x, y, opacity: 1, easing: Konva.Easings.EaseInOut });
     tween.play();
     return () => {
       tween.destroy();
-      g.position({ x: last.current?.x ?? x, y: last.current?.y ?? y });
+      g.position({ x, y });
       g.opacity(1);
     };
-  }, [x, y, flipKey, still]);
+  }, [x, y, ox, oy, flipKey, still]);
   return (
     <Group ref={node} x={x} y={y} name={name}>
       {children}
     </Group>
   );
+}
+
+interface GroupPlace {
+  readonly x: number;
+  readonly y: number;
+  readonly scaleX: number;
+  readonly scaleY: number;
+}
+
+/**
+ * When the view turns round (front first, and the F moved to the other end) the drawing turns over
+ * like a card about its middle instead of jumping (give `turnAboutU`, the middle's u), and the
+ * layers drawn over it fade back in (leave it out). `place` is where React puts the group now.
+ */
+function useTurnOver(node: RefObject<KonvaGroup | null>, orient: ViewOrientation, place: GroupPlace, still: boolean, turnAboutU?: number): void {
+  const latest = useRef(place);
+  latest.current = place;
+  const before = useRef<{ orient: ViewOrientation; place: GroupPlace } | null>(null);
+  useLayoutEffect(() => {
+    const g = node.current;
+    const prev = before.current;
+    if (!g || !prev || (prev.orient.su === orient.su && prev.orient.sv === orient.sv) || still) return;
+    let tween: Konva.Tween;
+    const settle = (): void => {
+      g.setAttrs({ ...(turnAboutU === undefined ? {} : latest.current), opacity: 1 });
+    };
+    if (turnAboutU === undefined) {
+      g.opacity(0);
+      tween = new Konva.Tween({ node: g, duration: FLIP_SECONDS, opacity: 1 });
+    } else {
+      // Squeeze the old picture to its middle, swap the vertical sense while it has no width, open the new one.
+      const from = prev.place;
+      g.setAttrs(from);
+      tween = new Konva.Tween({
+        node: g,
+        duration: FLIP_SECONDS / 2,
+        x: from.x + from.scaleX * turnAboutU,
+        scaleX: 0,
+        easing: Konva.Easings.EaseIn,
+        onFinish: () => {
+          const to = latest.current;
+          g.setAttrs({ y: to.y, scaleY: to.scaleY });
+          tween = new Konva.Tween({ node: g, duration: FLIP_SECONDS / 2, x: to.x, scaleX: to.scaleX, easing: Konva.Easings.EaseOut, onFinish: settle });
+          tween.play();
+        },
+      });
+    }
+    tween.play();
+    return () => {
+      tween.destroy();
+      settle();
+    };
+  }, [node, orient, still, turnAboutU]);
+  // Runs after the effect above on every commit: the place and orientation the next turn starts from.
+  useLayoutEffect(() => {
+    before.current = { orient, place: latest.current };
+  });
 }
 
 /** A placed orientation word with its box size, relative to the camera origin. */
@@ -201,6 +273,8 @@ export const LABEL_FONT_PX = 16;
 export const OverlayLayer = memo(function OverlayLayer(props: OverlayLayerProps) {
   const { palette: p, orient, camera, numerals, markers, fMarks, selection, focus, flipKey, reduceMotion } = props;
   const { scale } = camera;
+  const group = useRef<KonvaGroup>(null);
+  useTurnOver(group, orient, { x: camera.ox, y: camera.oy, scaleX: 1, scaleY: 1 }, reduceMotion);
   const numeralFunc = useCallback((ctx: Context) => paintNumerals(ctx._context, numerals, p, NUMERAL_FONT_PX), [numerals, p]);
   const numeralShape = useRef<KonvaShape>(null);
   useLayoutEffect(() => {
@@ -292,10 +366,10 @@ export const OverlayLayer = memo(function OverlayLayer(props: OverlayLayerProps)
 
   return (
     <Layer listening={false} name="overlay-layer">
-      <Group x={camera.ox} y={camera.oy}>
-        <Shape ref={numeralShape} name="numerals" sceneFunc={numeralFunc} listening={false} perfectDrawEnabled={false} />
+      <Group ref={group} x={camera.ox} y={camera.oy}>
+        <Shape ref={numeralShape} name="numerals" numerals={numerals} sceneFunc={numeralFunc} listening={false} perfectDrawEnabled={false} />
         {fMarks.map((m) => (
-          <Glide key={m.key} x={m.x} y={m.y} flipKey={flipKey} still={reduceMotion} name="f-marking">
+          <Glide key={m.key} x={m.x} y={m.y} ox={camera.ox} oy={camera.oy} flipKey={flipKey} still={reduceMotion} name="f-marking">
             <Shape sceneFunc={fFunc} mark={m} listening={false} perfectDrawEnabled={false} />
           </Glide>
         ))}
@@ -303,7 +377,7 @@ export const OverlayLayer = memo(function OverlayLayer(props: OverlayLayerProps)
           const front = b.marker.role === 'front';
           const plain = b.marker.role === 'left' || b.marker.role === 'right' || b.marker.role === 'caption';
           return (
-            <Glide key={b.marker.role} x={b.x} y={b.y} flipKey={flipKey} still={reduceMotion} name={`marker-${b.marker.role}`}>
+            <Glide key={b.marker.role} x={b.x} y={b.y} ox={camera.ox} oy={camera.oy} flipKey={flipKey} still={reduceMotion} name={`marker-${b.marker.role}`}>
               {!plain && (
                 <Rect
                   width={b.w}
