@@ -11,11 +11,14 @@ import { ensurePackages, newestMtime, pg } from './lib/system';
 const dev = process.argv.includes('--dev');
 const external = !!process.env.DATABASE_URL;
 const PGPORT = process.env.PGPORT ?? '54329';
-const pgEnv = { PGPORT, PG_FSYNC: 'on', PG_DATABASES: 'hoodline' };
-const LOCK = path.resolve('.data/hoodline.lock');
+// PG_DATA_DIR / PG_RUN_DIR move the private cluster (tests use this to run a second copy elsewhere).
+const DATA_DIR = path.resolve(process.env.PG_DATA_DIR ?? '.data/pg');
+const STATE_DIR = path.dirname(DATA_DIR);
+const pgEnv = { PGPORT, PG_FSYNC: 'on', PG_DATABASES: 'hoodline', PG_DATA_DIR: DATA_DIR, PG_RUN_DIR: process.env.PG_RUN_DIR ?? path.join(STATE_DIR, 'pg-run') };
+const LOCK = path.join(STATE_DIR, 'hoodline.lock');
 
 function takeLock() {
-  fs.mkdirSync('.data', { recursive: true });
+  fs.mkdirSync(STATE_DIR, { recursive: true });
   for (let attempt = 0; attempt < 2; attempt++) {
     try {
       const fd = fs.openSync(LOCK, 'wx');
@@ -48,6 +51,7 @@ const releaseLock = () => {
 };
 
 function buildIfStale() {
+  if (process.env.SKIP_CLIENT_BUILD === '1') return; // API-only runs (tests of this script)
   const built = fs.existsSync('dist/index.html') ? fs.statSync('dist/index.html').mtimeMs : 0;
   const sources = newestMtime(['src', 'shared', 'index.html', 'vite.config.ts', 'package-lock.json', 'public']);
   if (built >= sources) return;
@@ -77,8 +81,8 @@ async function main() {
   }
   if (!process.env.SESSION_SECRET) {
     // A secret kept beside the data, so sessions survive a restart and no default ships to production.
-    const f = path.resolve('.data/session-secret');
-    fs.mkdirSync('.data', { recursive: true });
+    const f = path.join(STATE_DIR, 'session-secret');
+    fs.mkdirSync(STATE_DIR, { recursive: true });
     if (!fs.existsSync(f)) fs.writeFileSync(f, (await import('node:crypto')).randomBytes(32).toString('hex'), { mode: 0o600 });
     process.env.SESSION_SECRET = fs.readFileSync(f, 'utf8').trim();
   }
