@@ -24,6 +24,18 @@ import type { Person } from '../../http/routes';
 import { audit } from '../../lib/audit';
 import { labRepository, type AttemptRecordRow, type StoredAnswer } from './repository';
 
+/** A drawing whose unit type is not registered (foreign key) is the trainer's input, not our failure. */
+async function withUnitTypeCheck<T>(run: () => Promise<T>): Promise<T> {
+  try {
+    return await run();
+  } catch (e) {
+    if ((e as { code?: string }).code === '23503' || (e as { cause?: { code?: string } }).cause?.code === '23503') {
+      throw new AppError('validation', 'That unit type is not registered', { unitTypeKey: 'No such unit type' });
+    }
+    throw e;
+  }
+}
+
 /** What a learner may see of a stored prompt: everything but the expected answer. */
 const publicPrompt = ({ expected: _expected, ...p }: StoredPrompt): Prompt => p as Prompt;
 
@@ -134,18 +146,18 @@ export function labService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
 
     async createQuiz(actor: Person, ip: string, body: CreateQuizBody): Promise<QuizRow> {
       checkBuildable(body.unitTypeKey, body.templates);
-      return db.transaction(async (tx) => {
+      return withUnitTypeCheck(() => db.transaction(async (tx) => {
         const repo = labRepository(tx);
         await checkGroup(repo, body.groupId);
         const id = await repo.insertQuiz({ title: body.title, unitTypeKey: body.unitTypeKey, templates: body.templates, groupId: body.groupId ?? null, createdBy: actor.id });
         await audit(tx, { actorId: actor.id, action: 'quiz_created', entity: 'quiz', entityId: id, ip, details: { title: body.title, groupId: body.groupId ?? null } });
         return (await repo.quizRows(id))[0];
-      });
+      }));
     },
 
     async updateQuiz(actor: Person, ip: string, id: string, body: UpdateQuizBody): Promise<QuizRow> {
       const { version, ...patch } = body;
-      return db.transaction(async (tx) => {
+      return withUnitTypeCheck(() => db.transaction(async (tx) => {
         const repo = labRepository(tx);
         const before = await repo.quiz(id);
         if (!before) throw notFound('Quiz');
@@ -157,7 +169,7 @@ export function labService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
         const shared = patch.groupId !== undefined && patch.groupId !== before.groupId;
         await audit(tx, { actorId: actor.id, action: shared ? 'quiz_shared' : 'quiz_updated', entity: 'quiz', entityId: id, ip, details: patch });
         return (await repo.quizRows(id))[0];
-      });
+      }));
     },
 
     async myQuizzes(actor: Person): Promise<MyQuizRow[]> {
