@@ -1,4 +1,4 @@
-import type { FrontEnd, ViewKey } from '../domain/frames';
+import { bodyPoint, type BodyPoint, type FrontEnd, type ViewKey } from '../domain/frames';
 import type { PartKind } from '../domain/parts';
 import type { Drawing } from '../drawings/types';
 import { deriveLayout, type DerivedPart } from '../orientation';
@@ -26,14 +26,22 @@ export interface UnitLayout {
   parts: LayoutPart[];
 }
 
+/**
+ * The F stencil is drawn on the short hood; a unit that carries it on the long hood carries it at the
+ * same place relative to its front, i.e. turned end for end (x → L − x, y → −y).
+ */
+export function markingCentre(centre: BodyPoint, frontEnd: FrontEnd, lengthIn: number): BodyPoint {
+  return frontEnd === 'short_hood' ? centre : bodyPoint(lengthIn - centre.x, -centre.y, centre.z);
+}
+
+const instancesFor = (drawing: Drawing, frontEnd: FrontEnd) =>
+  drawing.instances.map((i) => ({ instanceId: i.instanceId, kind: i.kind, centre: i.kind === 'front_marking' ? markingCentre(i.centre, frontEnd, drawing.lengthIn) : i.centre }));
+
 /** Derives every element's label from the unit's front end; one physical instance, one label. */
 export function unitLayout(drawing: Drawing, frontEnd: FrontEnd): UnitLayout {
-  const derived = deriveLayout(
-    drawing.instances.map((i) => ({ instanceId: i.instanceId, kind: i.kind, centre: i.centre })),
-    frontEnd,
-    drawing.lengthIn,
-  );
-  const byInstance = new Map(derived.map((d, i) => [d.instanceId, { d, centre: drawing.instances[i].centre }]));
+  const derived = deriveLayout(instancesFor(drawing, frontEnd), frontEnd, drawing.lengthIn);
+  const placed = instancesFor(drawing, frontEnd);
+  const byInstance = new Map(derived.map((d, i) => [d.instanceId, { d, centre: placed[i].centre }]));
   const parts: LayoutPart[] = [];
   for (const view of drawing.views) {
     for (const p of view.parts) {
@@ -60,10 +68,6 @@ export function unitLayout(drawing: Drawing, frontEnd: FrontEnd): UnitLayout {
 
 /** Instances ordered by distance from the front (the Tab order and the default walk order). */
 export function instancesFromFront(drawing: Drawing, frontEnd: FrontEnd): DerivedPart[] {
-  const derived = deriveLayout(
-    drawing.instances.map((i) => ({ instanceId: i.instanceId, kind: i.kind, centre: i.centre })),
-    frontEnd,
-    drawing.lengthIn,
-  );
+  const derived = deriveLayout(instancesFor(drawing, frontEnd), frontEnd, drawing.lengthIn);
   return [...derived].sort((a, b) => a.front.along - b.front.along || b.front.left - a.front.left || a.instanceId.localeCompare(b.instanceId));
 }

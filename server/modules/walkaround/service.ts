@@ -211,7 +211,8 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       throw new AppError('validation', 'The pin is outside the view', { x: 'Outside the view', y: 'Outside the view' });
     }
     const bb = part.bbox;
-    if (body.x < bb.umin - PIN_SLACK_IN || body.x > bb.umax + PIN_SLACK_IN || body.y < bb.vmin - PIN_SLACK_IN || body.y > bb.vmax + PIN_SLACK_IN) {
+    // The F is shown where the unit carries it, which may be the other end from the drawing's stencil.
+    if (part.kind !== 'front_marking' && body.x < bb.umin - PIN_SLACK_IN || body.x > bb.umax + PIN_SLACK_IN || body.y < bb.vmin - PIN_SLACK_IN || body.y > bb.vmax + PIN_SLACK_IN) {
       throw new AppError('validation', 'The pin is not on the part it names', { x: 'Not on the part', y: 'Not on the part' });
     }
     const defect = defectTypeByKey(body.defectType);
