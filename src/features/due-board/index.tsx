@@ -1,6 +1,11 @@
-import { Placeholder } from '../../components/placeholder';
+import { Route, Routes } from 'react-router-dom';
+import { DueBoardPage } from './components/due-board-page';
 
-/** Screen entry, lazy-loaded by the router. */
-export default function Screen() {
-  return <Placeholder title="Due board" what="This screen is being built." />;
+/** Screen entry, lazy-loaded by the router at /due/*. */
+export default function DueBoardScreen() {
+  return (
+    <Routes>
+      <Route index element={<DueBoardPage />} />
+    </Routes>
+  );
 }

@@ -1,6 +1,11 @@
-import { Placeholder } from '../../components/placeholder';
+import { Route, Routes } from 'react-router-dom';
+import { OutboxPage } from './components/outbox-page';
 
-/** Screen entry, lazy-loaded by the router. */
-export default function Screen() {
-  return <Placeholder title="Outbox" what="This screen is being built." />;
+/** Screen entry, lazy-loaded by the router at /outbox/*. */
+export default function OutboxScreen() {
+  return (
+    <Routes>
+      <Route index element={<OutboxPage />} />
+    </Routes>
+  );
 }
