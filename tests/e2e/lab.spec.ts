@@ -30,13 +30,15 @@ async function signOut(page: Page) {
   await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible();
 }
 
-async function shot(page: Page, name: string) {
+/** Screens at a tablet and a phone size; `focus` is what the screen itself scrolls to (the verdict after an answer). */
+async function shot(page: Page, name: string, focus?: string) {
   for (const [w, h] of [
     [1024, 768],
     [390, 844],
   ] as const) {
     await page.setViewportSize({ width: w, height: h });
     await page.waitForTimeout(250);
+    if (focus) await page.getByTestId(focus).scrollIntoViewIfNeeded();
     await page.screenshot({ path: `.tmp/screens/lab-${name}-${w}x${h}.png`, fullPage: false });
   }
   await page.setViewportSize({ width: 1024, height: 768 });
@@ -178,7 +180,7 @@ test('a trainer builds and shares a quiz; an inspector takes it, partly right an
     await expect(fb).toContainText(/The F is on the (short|long) hood end/);
     // The right part lights up.
     if (expectedFor(p, drawings.get(p.unitTypeKey)!).partIds.length > 0) await expect(page.locator('[data-mark="right"]').first()).toBeAttached();
-    if (p.index === 1) await shot(page, 'inspector-feedback');
+    if (p.index === 1) await shot(page, 'inspector-feedback', 'feedback');
     await page.getByRole('button', { name: p.index === attempt.prompts.length - 1 ? 'See your score' : 'Next prompt' }).click();
   }
   const right = plan.filter(Boolean).length;

@@ -30,14 +30,16 @@ export function LabHome() {
           <span className="block text-base text-graphite-2">Full screen and large type for a classroom; step through with the arrow keys, F moves the F.</span>
         </Link>
       </section>
-      <MyQuizzes />
+      <MyQuizzes hideWhenEmpty={trainer} />
       {trainer && <TrainerQuizzes />}
     </div>
   );
 }
 
-function MyQuizzes() {
+function MyQuizzes({ hideWhenEmpty }: { hideWhenEmpty: boolean }) {
   const q = useMyQuizzes();
+  // A trainer is seldom in a group; the section only shows when there is something to take.
+  if (hideWhenEmpty && q.data?.items.length === 0) return null;
   return (
     <section aria-labelledby="mine-heading" className="space-y-2">
       <h2 id="mine-heading" className="text-2xl font-bold">

@@ -126,7 +126,7 @@ function PromptStep({ attempt, prompt, onNext, onStop }: { attempt: AttemptView;
               ))}
             </div>
           <div className="space-y-3 overflow-x-auto">
-            <div className="min-w-[44rem] space-y-3 lg:min-w-0" style={zoom > 1 ? { width: `${zoom * 100}%` } : undefined}>
+            <div className="space-y-3" style={zoom > 1 ? { width: `${zoom * 100}%` } : undefined}>
               {prompt.views.map((v) => (
                 <QuizSheet
                   key={v}
@@ -167,7 +167,7 @@ function PromptStep({ attempt, prompt, onNext, onStop }: { attempt: AttemptView;
 function Choices({ prompt, drawing, disabled, onAnswer }: { prompt: Prompt; drawing: Drawing; disabled: boolean; onAnswer(a: Answer): void }) {
   switch (prompt.template) {
     case 'tap_part':
-      return <p className="text-lg">Tap the part on the drawing (or focus a view and use the arrow keys, then Enter).</p>;
+      return <p className="text-lg">Tap the part on the drawing; make the drawing larger with Size if the part is small (or focus a view, use the arrow keys, then Enter).</p>;
     case 'name_part':
       return (
         <fieldset className="space-y-2">
