@@ -136,7 +136,7 @@ async function inTx<T>(pool: pg.Pool, run: (c: pg.PoolClient) => Promise<T>): Pr
   try {
     // These statements read many rows and finish in well under a second: compiling them to
     // machine code (JIT) costs more than it saves, and the per-key hashes want more than 4 MB.
-    await c.query(`begin read only; set local jit = off; set local work_mem = '64MB'`);
+    await c.query(`begin read only; set local jit = off; set local work_mem = '32MB'`);
     const out = await run(c);
     await c.query('commit');
     return out;

@@ -4,7 +4,8 @@ import type { HotSpotsParams } from '../../../shared/api/hot-spots';
 import { formatCount, formatRate } from '../../../shared/hot-spots/rates';
 import { instanceForRow } from '../../../shared/hot-spots/rows';
 import type { LayoutPart } from '../../../shared/layout/unit-layout';
-import { useUnitTypeLayout } from '../drawing/api/get-unit-layout';
+import { useQuery } from '@tanstack/react-query';
+import { unitTypeLayoutQuery } from '../drawing/api/get-unit-layout';
 import { findingsCsvHref, tableCsvHref, useHotSpots } from './api/hot-spots';
 import { useUnitTypes, useYards } from './api/pickers';
 import { Filters } from './components/filters';
@@ -42,7 +43,7 @@ export default function HotSpotsScreen() {
   const filters = useMemo(() => filtersFromSearch(search, defaultType), [search, defaultType]);
   const selected = search.get('row');
   const data = useHotSpots(filters, !!filters.unitType);
-  const layout = useUnitTypeLayout(filters.unitType || 'none', 'short_hood');
+  const layout = useQuery({ ...unitTypeLayoutQuery(filters.unitType, 'short_hood'), enabled: !!filters.unitType });
   const isWide = useWide();
   const [note, setNote] = useState<string | null>(null);
 

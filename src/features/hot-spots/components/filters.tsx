@@ -22,8 +22,8 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
   for (const d of offered) byKind.set(d.partKind, [...(byKind.get(d.partKind) ?? []), d]);
   const kindLabel = (k: string) => (isPartKind(k) ? PART_KINDS[k].label : k);
   return (
-    <form className="card grid gap-3 p-3 sm:grid-cols-2 lg:grid-cols-[2fr_1fr_1fr]" aria-label="What to look at" onSubmit={(e) => e.preventDefault()}>
-      <div className="sm:col-span-2 lg:col-span-1">
+    <form className="card grid grid-cols-2 gap-3 p-3 lg:grid-cols-[2fr_1fr_1fr]" aria-label="What to look at" onSubmit={(e) => e.preventDefault()}>
+      <div className="col-span-2 lg:col-span-1">
         <label className="label" htmlFor="hs-type">Unit type</label>
         <select id="hs-type" className="field" value={filters.unitType} onChange={(e) => onChange({ unitType: e.target.value, defectTypes: [] })}>
           {unitTypes.map((t) => (
@@ -39,7 +39,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
         <label className="label" htmlFor="hs-to">To</label>
         <input id="hs-to" type="date" className="field" value={filters.to} min={filters.from} onChange={(e) => e.target.value && onChange({ to: e.target.value })} />
       </div>
-      <fieldset className="sm:col-span-2 lg:col-span-1">
+      <fieldset className="col-span-2 lg:col-span-1">
         <legend className="label">Weights</legend>
         <div className="flex flex-wrap gap-2">
           {FINDING_WEIGHTS.map((w: FindingWeight) => (
@@ -52,7 +52,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
         </div>
         <p className="mt-1 text-sm text-graphite-2">{filters.weights.length ? 'Only the weights picked.' : 'All weights.'}</p>
       </fieldset>
-      <fieldset className="sm:col-span-2">
+      <fieldset className="col-span-2">
         <legend className="label">Yards</legend>
         <div className="flex flex-wrap gap-2">
           {yards.map((y) => (
@@ -64,7 +64,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
         </div>
         <p className="mt-1 text-sm text-graphite-2">{filters.yards.length ? 'Inspections made at the yards picked.' : 'All yards.'}</p>
       </fieldset>
-      <details className="sm:col-span-2 lg:col-span-3">
+      <details className="col-span-2 lg:col-span-3">
         <summary className="flex min-h-12 cursor-pointer items-center text-lg font-bold">
           Defect types: {filters.defectTypes.length ? `${filters.defectTypes.length} picked` : 'all'}
         </summary>

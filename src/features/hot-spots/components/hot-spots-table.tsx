@@ -31,6 +31,7 @@ export function HotSpotsTable({ rows, selected, onSelect, inspections }: {
                 key={r.label}
                 aria-selected={on}
                 data-testid="hot-spot-row"
+                data-label={r.label}
                 className={`cursor-pointer border-b border-rule ${on ? 'bg-accent-soft' : 'hover:bg-paper-2'}`}
                 onClick={() => onSelect(on ? null : r.label)}
               >

@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import type { HotSpotRow, HotSpotsParams } from '../../../../shared/api/hot-spots';
 import { formatCount, formatRate } from '../../../../shared/hot-spots/rates';
@@ -18,8 +19,13 @@ export function RowDetail({ row, filters, timeZone, repeatWindowDays, onClose }:
   onClose(): void;
 }) {
   const list = useRowFindings(filters, row.label);
+  const ref = useRef<HTMLElement>(null);
+  // On a narrow screen the detail sits below the table: bring it into view when a row is picked.
+  useEffect(() => {
+    if (!window.matchMedia('(min-width: 1024px)').matches) ref.current?.scrollIntoView({ block: 'start' });
+  }, [row.label]);
   return (
-    <section className="card space-y-3 p-3" aria-labelledby="hs-row-title" data-testid="row-detail">
+    <section ref={ref} className="card scroll-mt-20 space-y-3 p-3" aria-labelledby="hs-row-title" data-testid="row-detail">
       <div className="flex flex-wrap items-start gap-2">
         <h2 id="hs-row-title" className="mr-auto text-2xl font-bold">{row.label}</h2>
         <a className="btn" href={findingsCsvHref(filters, row.label)} download>
@@ -42,7 +48,7 @@ export function RowDetail({ row, filters, timeZone, repeatWindowDays, onClose }:
           <p className="text-sm text-graphite-2">
             {list.data.total > list.data.items.length ? `The newest ${list.data.items.length} of ${formatCount(list.data.total)}; the export has them all.` : 'Newest first.'}
           </p>
-          <ul className="divide-y divide-rule" aria-label={`Findings on ${row.label}`}>
+          <ul className="relative divide-y divide-rule lg:max-h-[28rem] lg:overflow-y-auto" aria-label={`Findings on ${row.label}`}>
             {list.data.items.map((f) => (
               <li key={f.id}>
                 <Link to={`/repairs/findings/${f.id}`} className="flex min-h-12 flex-wrap items-center gap-x-3 gap-y-1 px-1 py-2 hover:bg-paper-2">

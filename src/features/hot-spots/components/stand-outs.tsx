@@ -1,4 +1,7 @@
 import type { HotSpotRow, HotSpotsResponse } from '../../../../shared/api/hot-spots';
+import { formatCount, formatProbability } from '../../../../shared/hot-spots/rates';
+
+const expected = (e: number) => (e >= 10 ? e.toFixed(0) : e.toFixed(1));
 
 /** "What stands out": the flagged parts with the figures behind each flag, and how the test works. */
 export function StandOuts({ data, onSelect }: { data: HotSpotsResponse; onSelect(label: string): void }) {
@@ -10,16 +13,21 @@ export function StandOuts({ data, onSelect }: { data: HotSpotsResponse; onSelect
         <p>No part stands out against the fleet in this selection.</p>
       ) : (
         <ul className="space-y-2">
-          {flagged.map((r) => (
+          {flagged.slice(0, 6).map((r) => (
             <li key={r.label}>
               <button type="button" className="w-full rounded-md border-2 border-rule p-2 text-left hover:bg-paper-2" onClick={() => onSelect(r.label)}>
                 <span className="block font-bold">{r.label}</span>
-                <span className="block text-base">{r.standOut!.words}</span>
+                <span className="block text-base">
+                  {formatCount(r.findings)} findings where about {expected(r.standOut!.expected)} were expected at the fleet rate; chance{' '}
+                  {formatProbability(r.standOut!.p)}.
+                </span>
               </button>
             </li>
           ))}
         </ul>
       )}
+      {flagged.length > 6 && <p className="text-base">{flagged.length - 6} more in the table, marked "Stands out".</p>}
+      {flagged.length > 0 && <p className="text-sm text-graphite-2">Pick one to see the figures in full.</p>}
       <details className="text-base">
         <summary className="flex min-h-12 cursor-pointer items-center font-bold">How a part is judged</summary>
         <p>{data.test.description}</p>
