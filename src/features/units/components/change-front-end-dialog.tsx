@@ -126,7 +126,7 @@ export function ChangeFrontEndDialog({
             maxLength={500}
             value={reason}
             onChange={(e) => setReason(e.target.value)}
-            onBlur={() => setTouched(true)}
+            onBlur={() => reason && setTouched(true)}
             aria-invalid={!!reasonError}
             aria-describedby={reasonError ? `${id}-reason-error` : undefined}
             placeholder="e.g. F stencil found on the long hood at the periodic inspection"

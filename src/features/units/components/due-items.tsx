@@ -13,6 +13,8 @@ function daysWords(i: DueItem): string {
   if (i.status === 'missing') return 'Counts as overdue until a date is recorded';
   if (i.status === 'not_in_use') return 'No daily inspection while the unit is not in use';
   if (i.daysLeft === null) return '';
+  // The daily done yesterday is due today, not yet missed (the due board's own rule).
+  if (i.daysLeft < 0 && i.status !== 'overdue') return 'Due today';
   if (i.daysLeft < 0) return `Overdue by ${-i.daysLeft} day${i.daysLeft === -1 ? '' : 's'}`;
   if (i.daysLeft === 0) return 'Last good day is today';
   return `${i.daysLeft} day${i.daysLeft === 1 ? '' : 's'} left`;

@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { inspectionQuery, type HistoryItem } from '../api/history';
-import { formatTime, formatWhen, plural } from '../lib/format';
+import { formatSpan, formatWhen, plural } from '../lib/format';
 import { historyEntries, type HistoryGroup } from '../lib/history';
 import { WeightMark } from './flags';
 
@@ -95,16 +95,15 @@ export function HistoryList({ items, canOpenRecords, timeZone }: { items: readon
       ) : (
         <ol className="divide-y divide-rule" data-testid="history">
           {page.map(({ h, e, key }) => (
-            <li key={key} className="grid items-start gap-x-3 py-1.5 sm:grid-cols-[10.5rem_1fr_auto]" data-kind={h.kind}>
-              <time dateTime={h.at} className="text-sm text-graphite-2 sm:pt-3">
-                {formatWhen(h.at, timeZone)}
+            <li key={key} className="grid grid-cols-[1fr_auto] items-start gap-x-3 py-1.5 sm:grid-cols-[12rem_1fr_auto]" data-kind={h.kind}>
+              <time dateTime={h.at} className="col-start-1 text-sm text-graphite-2 sm:col-start-auto sm:pt-3">
+                {e.startedAt ? formatSpan(e.startedAt, h.at, timeZone) : formatWhen(h.at, timeZone)}
               </time>
-              <div className="min-w-0 sm:py-2.5">
+              <div className="col-start-1 min-w-0 sm:col-start-auto sm:py-2.5">
                 <p className="flex flex-wrap items-center gap-x-2">
                   <span className="font-bold">{e.title}</span>
                   {h.weight && e.group === 'finding' && <WeightMark weight={h.weight} />}
                   {h.actor && <span className="text-graphite-2">· {h.actor}</span>}
-                  {e.startedAt && <span className="text-sm text-graphite-2">· walked from {formatTime(e.startedAt, timeZone)}</span>}
                 </p>
                 {e.detail &&
                   (e.findingId ? (
@@ -116,16 +115,19 @@ export function HistoryList({ items, canOpenRecords, timeZone }: { items: readon
                   ))}
                 {e.inspectionId && !canOpenRecords && open.has(key) && <InspectionInline id={e.inspectionId} timeZone={timeZone} />}
               </div>
-              {e.inspectionId &&
-                (canOpenRecords ? (
-                  <Link to={`/walkaround/inspections/${e.inspectionId}/record`} className={LINK}>
-                    {h.kind === 'correction' ? 'Corrected record' : 'Record'}
-                  </Link>
-                ) : (
-                  <button type="button" className={LINK} aria-expanded={open.has(key)} onClick={() => toggle(key)}>
-                    {open.has(key) ? 'Hide record' : 'Show record'}
-                  </button>
-                ))}
+              {e.inspectionId && (
+                <div className="col-start-2 row-span-2 row-start-1 self-center sm:col-start-auto sm:row-span-1 sm:row-start-auto sm:self-start">
+                  {canOpenRecords ? (
+                    <Link to={`/walkaround/inspections/${e.inspectionId}/record`} className={LINK}>
+                      {h.kind === 'correction' ? 'Corrected record' : 'Record'}
+                    </Link>
+                  ) : (
+                    <button type="button" className={LINK} aria-expanded={open.has(key)} onClick={() => toggle(key)}>
+                      {open.has(key) ? 'Hide record' : 'Show record'}
+                    </button>
+                  )}
+                </div>
+              )}
             </li>
           ))}
         </ol>

@@ -33,7 +33,7 @@ export function RosterTable({ units, due }: RosterListProps) {
           {units.map((u) => (
             <tr key={u.id} data-unit={u.roadNumber} className={`border-b border-rule last:border-b-0 ${u.nonComplying ? 'bg-paper-2' : ''}`}>
               <th scope="row" className="px-3 py-1">
-                <Link to={u.id} className="inline-flex min-h-12 items-center text-xl font-bold underline decoration-2 underline-offset-4 hover:decoration-accent focus-visible:outline-3 focus-visible:outline-accent">
+                <Link to={u.id} className="inline-flex min-h-12 items-center text-xl font-bold whitespace-nowrap underline decoration-2 underline-offset-4 hover:decoration-accent focus-visible:outline-3 focus-visible:outline-accent">
                   {u.roadNumber}
                 </Link>
               </th>

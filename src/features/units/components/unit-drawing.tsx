@@ -35,22 +35,31 @@ function useWide(): boolean {
  */
 function useCameraAttribute(handle: RefObject<DrawingCanvasHandle | null>, box: RefObject<HTMLDivElement | null>) {
   const pending = useRef(0);
+  const retry = useRef(0);
   const read = () => {
     cancelAnimationFrame(pending.current);
+    clearTimeout(retry.current);
     // Two frames: the canvas applies a gesture's camera in the render after the event.
     pending.current = requestAnimationFrame(() => {
       pending.current = requestAnimationFrame(() => {
         const c = handle.current?.camera();
         if (c && box.current) box.current.dataset.camera = `${c.scale} ${c.ox} ${c.oy}`;
+        // The canvas chunk may still be loading: look again shortly.
+        else retry.current = window.setTimeout(read, 150);
       });
     });
   };
   useEffect(read);
   useEffect(() => {
+    const el = box.current;
+    const ro = typeof ResizeObserver === 'function' && el ? new ResizeObserver(() => read()) : null;
+    if (ro && el) ro.observe(el);
     window.addEventListener('resize', read);
     return () => {
+      ro?.disconnect();
       window.removeEventListener('resize', read);
       cancelAnimationFrame(pending.current);
+      clearTimeout(retry.current);
     };
   }, []);
   return read;

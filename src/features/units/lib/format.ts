@@ -61,3 +61,10 @@ export function formatTime(iso: string, timeZone?: string): string {
   if (Number.isNaN(d.getTime())) return iso;
   return new Intl.DateTimeFormat('en-GB', { timeZone: timeZone || undefined, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(d);
 }
+
+/** A span of time: "30 Nov 2026, 06:41–07:21", or both dates in full when it crosses midnight. */
+export function formatSpan(startIso: string, endIso: string, timeZone?: string): string {
+  const day = (iso: string) => new Intl.DateTimeFormat('en-GB', { timeZone: timeZone || undefined, day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso));
+  if (Number.isNaN(new Date(startIso).getTime()) || Number.isNaN(new Date(endIso).getTime())) return formatWhen(endIso, timeZone);
+  return day(startIso) === day(endIso) ? `${formatWhen(startIso, timeZone)}–${formatTime(endIso, timeZone)}` : `${formatWhen(startIso, timeZone)} – ${formatWhen(endIso, timeZone)}`;
+}
