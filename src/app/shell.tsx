@@ -50,15 +50,15 @@ export function Shell() {
               </NavLink>
             ))}
           </nav>
-          <div className="hidden items-center gap-2 xl:ml-auto xl:flex">
-            <span className="text-right leading-tight" data-testid="signed-in">
-              <span className="block font-bold">{me.data.name}</span>
-              <span className="block text-sm text-graphite-2">{ROLE_LABELS[me.data.role]}</span>
+          {/* The signed-in person, always visible: it is also the way to the account page. */}
+          <NavLink to="/account" className="btn px-3 leading-tight lg:ml-auto" title="Your account" data-testid="signed-in">
+            <span className="flex flex-col items-start">
+              <span>
+                <span className="xl:hidden">{me.data.name.split(' ')[0]}</span>
+                <span className="hidden xl:inline">{me.data.name}</span>
+              </span>
+              <span className="text-xs font-normal text-graphite-2">{ROLE_LABELS[me.data.role]}</span>
             </span>
-          </div>
-          <NavLink to="/account" className="btn px-3 lg:ml-auto xl:ml-0" aria-label="Your account">
-            <span className="lg:hidden">{me.data.name.split(' ')[0]}</span>
-            <span className="hidden lg:inline">Account</span>
           </NavLink>
           <button className="btn px-3" onClick={() => setDark((d) => !d)} aria-pressed={dark} title="Night colours">
             {dark ? 'Day' : 'Night'}
