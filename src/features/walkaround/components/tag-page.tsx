@@ -107,7 +107,7 @@ export function TagPage() {
                 {t.defects.map((d) => (
                   <li key={d.id} data-testid="tag-defect">
                     <strong>{d.label}</strong>: {d.defect}
-                    {d.rule && ` (${d.rule})`} — found {formatInZone(d.createdAt, t.railroad.timeZone, 'd MMM yyyy')}
+                    {d.rule && ` (${d.rule})`} — found {formatInZone(d.createdAt, t.railroad.timeZone, 'd MMM yyyy', false)}
                   </li>
                 ))}
               </ol>

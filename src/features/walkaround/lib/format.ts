@@ -3,8 +3,9 @@ import { format } from 'date-fns';
 import type { FrontEnd } from '../../../../shared/domain/frames';
 
 /** A moment in the railroad's own time zone, with the zone's name so a printed record is unambiguous. */
-export function formatInZone(iso: string, timeZone: string, pattern = "EEE d MMM yyyy, HH:mm zzz"): string {
-  return `${format(new TZDate(iso, timeZone), pattern)} (${timeZone})`;
+export function formatInZone(iso: string, timeZone: string, pattern = 'EEE d MMM yyyy, HH:mm zzz', withZone = true): string {
+  const text = format(new TZDate(iso, timeZone), pattern);
+  return withZone ? `${text} (${timeZone})` : text;
 }
 
 export const endName = (e: FrontEnd) => (e === 'short_hood' ? 'short hood' : 'long hood');
