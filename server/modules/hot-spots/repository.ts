@@ -149,7 +149,6 @@ async function inTx<T>(pool: pg.Pool, run: (c: pg.PoolClient) => Promise<T>): Pr
 }
 
 export const hotSpotsRepository = (pool: pg.Pool) => ({
-  /** Everything the screen shows, in one statement. */
   /** Settings the statements need; the service caches them. */
   async settings(): Promise<Settings | null> {
     const r = await pool.query<Settings>(`select time_zone as "timeZone", repeat_window_days as "repeatWindowDays" from railroad_settings where id = 1`);
