@@ -122,8 +122,10 @@ export function OutboxPage() {
                 <li key={`${m.at}-${i}`} className="card p-2">
                   <details className="group">
                     <summary className="flex min-h-12 cursor-pointer flex-wrap items-center gap-x-3">
-                      <Chevron />
-                      <span className="font-bold break-words">{m.subject}</span>
+                      <span className="inline-flex items-center gap-2 font-bold break-words">
+                        <Chevron />
+                        {m.subject}
+                      </span>
                       <span className="text-base break-all">to {m.to.join(', ')}</span>
                       <span className="text-sm text-graphite-2">{when(m.at)}</span>
                     </summary>

@@ -93,7 +93,8 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
             What to do
           </h2>
           <FindingActions finding={f} me={me} people={people} onRepaired={uploads.send} />
-          {foreman && (f.state === 'in_repair' || f.state === 'repaired') && (
+          {/* While in repair, photos go with the repair form; once repaired, more can be added to that repair. */}
+          {foreman && f.state === 'repaired' && (
             <div className="space-y-2 border-t border-rule pt-3">
               <PhotoPicker files={extra} onChange={setExtra} label="Add repair photos" />
               {extra.length > 0 && (
