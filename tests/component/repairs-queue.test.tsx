@@ -154,6 +154,30 @@ describe('repair queue', () => {
     expect(screen.getByRole('link', { name: 'Export CSV' }).getAttribute('href')).toContain('q=pilot');
   });
 
+  it('flags a unit overdue on any interval of the due board wherever it appears in the queue', async () => {
+    const r = baseRoutes();
+    r['GET /api/due'] = () => ({ body: { on: '2026-03-04', timeZone: 'America/Chicago', items: [ { unitId: 'u-HRL2201', state: 'overdue' }, { unitId: 'u-HRL4104', state: 'due_soon' } ] } });
+    mockApi(r);
+    renderAt();
+    await waitFor(() => expect(screen.getAllByTestId('queue-row')).toHaveLength(4));
+    const rows = screen.getAllByTestId('queue-row');
+    expect(await within(rows[2]).findByText('Intervals overdue')).toBeInTheDocument();
+    expect(screen.getAllByText('Intervals overdue')).toHaveLength(1);
+  });
+
+  it('takes an inspector straight to the repairs waiting to be verified', async () => {
+    const r = baseRoutes([...QUEUE, item({ roadNumber: 'HRL 2203', state: 'repaired', label: 'Front coupler' })]);
+    r['GET /api/auth/me'] = () => ({ body: { ...ME, id: 'p-dana', name: 'Dana Okafor', role: 'inspector' } });
+    const calls = mockApi(r);
+    const user = userEvent.setup();
+    renderAt();
+    await user.click(await screen.findByRole('button', { name: 'Show the 1 repair waiting to be verified' }));
+    await waitFor(() => expect(calls.some((c) => c.path === '/api/repairs' && c.search.get('state') === 'repaired')).toBe(true));
+    expect(screen.getByLabelText('State')).toHaveValue('repaired');
+    // Inspectors do not clear tags.
+    expect(screen.queryByRole('heading', { name: 'Non-complying tags ready to clear' })).toBeNull();
+  });
+
   it('says so when nothing is open, and when only the filters hide everything', async () => {
     mockApi(baseRoutes([]));
     renderAt();

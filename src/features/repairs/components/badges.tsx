@@ -24,3 +24,12 @@ const STATE_STYLE: Record<FindingState, string> = {
 export function StateBadge({ state }: { state: FindingState }) {
   return <span className={`inline-block rounded border-2 px-1.5 py-0.5 text-sm leading-none font-bold whitespace-nowrap uppercase ${STATE_STYLE[state]}`}>{STATE_WORDS[state]}</span>;
 }
+
+/** The unit is overdue on an inspection or test interval (the due board says which). */
+export function OverdueBadge() {
+  return (
+    <span className="inline-block rounded border-2 border-federal px-1.5 py-0.5 text-sm leading-none font-bold whitespace-nowrap text-federal" title="Overdue on an inspection or test: see the due board">
+      Intervals overdue
+    </span>
+  );
+}

@@ -8,7 +8,8 @@ import { meQuery } from '../api/me';
 import { queueQuery } from '../api/queue';
 import { settingsQuery } from '../api/settings';
 import { eventWords, formatWhen } from '../lib/format';
-import { StateBadge } from './badges';
+import { dueStatesQuery } from '../api/due-flags';
+import { OverdueBadge, StateBadge } from './badges';
 import { FindingActions } from './finding-actions';
 import { PhotoPicker, UploadList, useRepairUploads } from './repair-photos';
 import { TagPanel } from './tag-panel';
@@ -44,6 +45,7 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
   const acts = can(me.role, 'inspect');
   const queue = useQuery(queueQuery({}));
   const [extra, setExtra] = useState<File[]>([]);
+  const overdue = useQuery(dueStatesQuery());
   // Until the people list is open to foremen, pick from yourself and whoever already holds work.
   const people = useMemo(() => {
     const m = new Map<string, string>([[me.id, `${me.name} (you)`]]);
@@ -63,6 +65,7 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
           <span className="text-2xl font-bold">{f.roadNumber}</span>
           <WeightMark weight={f.weight} size={22} />
           <StateBadge state={f.state} />
+          {overdue.data?.has(f.unitId) && <OverdueBadge />}
         </div>
         <h1 id="finding-title" className="text-3xl font-bold">
           {f.label}

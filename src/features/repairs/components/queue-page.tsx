@@ -3,6 +3,7 @@ import type { SortingState } from '@tanstack/react-table';
 import { useCallback, useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { can } from '../../../../shared/domain/roles';
+import { dueStatesQuery } from '../api/due-flags';
 import { meQuery } from '../api/me';
 import { unitsQuery, yardsQuery } from '../api/pickers';
 import { QUEUE_FILTER_KEYS, queueCsvHref, queueQuery, queueSearch, type QueueFilterKey, type QueueFilters } from '../api/queue';
@@ -21,6 +22,7 @@ export function QueuePage() {
   const queue = useQuery(queueQuery(filters));
   // Everyone who has work in the queue, for the "assigned to" filter, whatever the current filters.
   const all = useQuery(queueQuery({}));
+  const overdue = useQuery(dueStatesQuery());
   const [sorting, setSorting] = useState<SortingState>([]);
   const setFilter = useCallback(
     (key: QueueFilterKey, value: string) =>
@@ -41,6 +43,7 @@ export function QueuePage() {
     return [...m].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
   }, [all.data]);
   const items = queue.data?.items ?? [];
+  const toVerify = (all.data?.items ?? []).filter((i) => i.state === 'repaired').length;
   const ncUnits = new Set(items.filter((i) => i.nonComplying).map((i) => i.unitId)).size;
   const filtered = Object.keys(filters).length > 0;
   const tz = settings.data?.timeZone;
@@ -61,6 +64,11 @@ export function QueuePage() {
         </a>
       </div>
       {me.data && can(me.data.role, 'repair') && <TagsToClear timeZone={tz} />}
+      {me.data && me.data.role === 'inspector' && toVerify > 0 && filters.state !== 'repaired' && (
+        <button type="button" className="btn-primary" onClick={() => setFilter('state', 'repaired')}>
+          Show the {toVerify} repair{toVerify === 1 ? '' : 's'} waiting to be verified
+        </button>
+      )}
       <QueueFilterBar
         filters={filters}
         onChange={setFilter}
@@ -83,7 +91,7 @@ export function QueuePage() {
       )}
       {items.length > 0 && (
         <div className={queue.isPlaceholderData ? 'opacity-60' : ''}>
-          <QueueTable items={items} sorting={sorting} onSortingChange={setSorting} timeZone={tz} backSearch={queueSearch(filters)} />
+          <QueueTable items={items} sorting={sorting} onSortingChange={setSorting} timeZone={tz} backSearch={queueSearch(filters)} overdue={overdue.data} />
         </div>
       )}
     </div>

@@ -5,7 +5,7 @@ import type { QueueItem } from '../../../../shared/api/repairs';
 import { FINDING_STATES, FINDING_WEIGHTS } from '../../../../shared/domain/states';
 import { ageWords, formatWhen } from '../lib/format';
 import { T } from '../lib/table-classes';
-import { NonComplyingBadge, StateBadge } from './badges';
+import { NonComplyingBadge, OverdueBadge, StateBadge } from './badges';
 import { WeightMark } from './weight-mark';
 
 const col = createColumnHelper<QueueItem>();
@@ -24,9 +24,11 @@ interface Props {
   onSortingChange: (s: SortingState) => void;
   timeZone?: string;
   backSearch: string;
+  /** Units overdue on any interval of the due board. */
+  overdue?: ReadonlySet<string>;
 }
 
-export function QueueTable({ items, sorting, onSortingChange, timeZone, backSearch }: Props) {
+export function QueueTable({ items, sorting, onSortingChange, timeZone, backSearch, overdue }: Props) {
   const columns = useMemo(
     () => [
       col.accessor((r) => (r.nonComplying ? 1 : 0), { id: 'nonComplying', header: 'Non-complying' }),
@@ -36,7 +38,10 @@ export function QueueTable({ items, sorting, onSortingChange, timeZone, backSear
           <div className="space-y-1">
             <div className="text-xl font-bold whitespace-nowrap">{c.getValue()}</div>
             <div className="text-base text-graphite-2">{c.row.original.yardName ?? 'No yard'}</div>
-            {c.row.original.nonComplying && <NonComplyingBadge />}
+            <div className="flex flex-wrap gap-1">
+              {c.row.original.nonComplying && <NonComplyingBadge />}
+              {overdue?.has(c.row.original.unitId) && <OverdueBadge />}
+            </div>
           </div>
         ),
       }),
@@ -72,7 +77,7 @@ export function QueueTable({ items, sorting, onSortingChange, timeZone, backSear
         ),
       }),
     ],
-    [timeZone, backSearch],
+    [timeZone, backSearch, overdue],
   );
   // Stable state objects: a fresh array each render would recompute the sorted rows, whose auto-reset
   // schedules a table state update, which renders again, without end.
