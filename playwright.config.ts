@@ -1,7 +1,7 @@
 import { defineConfig } from '@playwright/test';
 
 // Debian's Chromium only; no browser is ever downloaded.
-const PORT = 3100;
+const PORT = Number(process.env.E2E_PORT ?? 3100);
 export default defineConfig({
   testDir: 'tests/e2e',
   workers: 1,
@@ -30,7 +30,7 @@ export default defineConfig({
       PORT: String(PORT),
       SERVE_DIST: '1',
       SEED_DEMO: '1',
-      SMTP_PORT: '2626',
+      SMTP_PORT: process.env.E2E_SMTP_PORT ?? '2626',
       PHOTO_DIR: '.tmp/e2e-photos',
       SESSION_SECRET: 'e2e-only-secret-0123456789',
     },

@@ -10,10 +10,12 @@ import { ensurePackages, pg } from './lib/system';
 const args = process.argv.slice(2);
 const only = args.find((a) => a.startsWith('--only='))?.slice(7); // vitest | e2e
 const PGPORT = process.env.TEST_PGPORT ?? '54339';
+// TEST_PG_DIR lets a second run (another checkout, a developer's own loop) keep out of this one's way.
+const dir = process.env.TEST_PG_DIR ?? `${process.cwd()}/.data/test-pg`;
 const pgEnv = {
   PGPORT,
-  PG_DATA_DIR: `${process.cwd()}/.data/test-pg`,
-  PG_RUN_DIR: `${process.cwd()}/.data/test-pg-run`,
+  PG_DATA_DIR: dir,
+  PG_RUN_DIR: `${dir}-run`,
   PG_FSYNC: 'off',
   PG_DATABASES: 'hoodline_test hoodline_e2e hoodline_bench',
 };
