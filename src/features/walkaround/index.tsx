@@ -1,5 +1,6 @@
 import { Route, Routes } from 'react-router-dom';
 import { RecordPage } from './components/record-page';
+import { RoutineEditor } from './components/routine-editor';
 import { SignScreen } from './components/sign-screen';
 import { StartScreen } from './components/start-screen';
 import { TagPage } from './components/tag-page';
@@ -14,6 +15,7 @@ export default function Walkaround() {
       <Route path="inspections/:id/sign" element={<SignScreen />} />
       <Route path="inspections/:id/record" element={<RecordPage />} />
       <Route path="units/:unitId/tag" element={<TagPage />} />
+      <Route path="routines/:unitTypeKey" element={<RoutineEditor />} />
       <Route
         path="*"
         element={

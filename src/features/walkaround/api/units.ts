@@ -1,6 +1,5 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import type { UnitRow } from '../../../../shared/api/units';
-import type { Drawing } from '../../../../shared/drawings/types';
 import { api } from '../../../lib/api-client';
 
 export const unitsQuery = (q: string) =>
@@ -13,6 +12,5 @@ export const unitsQuery = (q: string) =>
 export const unitQuery = (id: string) =>
   queryOptions({ queryKey: ['walkaround', 'unit', id], queryFn: ({ signal }) => api<UnitRow>(`/units/${id}`, { signal }) });
 
-/** A unit type's drawing; it never changes while the app runs. */
-export const drawingQuery = (key: string) =>
-  queryOptions({ queryKey: ['unit-types', key], queryFn: ({ signal }) => api<Drawing>(`/unit-types/${key}`, { signal }), staleTime: Infinity });
+/** A unit type's drawing: the canvas feature's own query, so both share one cache entry. */
+export { drawingQuery } from '../../drawing/api/get-drawing';

@@ -58,7 +58,7 @@ export function AreaPanel({ area, inspectionId, states, labels, findings, busy, 
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap gap-2">
-        <button type="button" className="btn-primary flex-1" disabled={!todo.length || busy} onClick={() => onPass(todo)}>
+        <button type="button" id="walk-pass-rest" className="btn-primary flex-1" disabled={!todo.length || busy} onClick={() => onPass(todo)}>
           Pass the rest of this area{todo.length ? ` (${todo.length})` : ''}
         </button>
         {next && !todo.length && (

@@ -5,6 +5,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import type { UnitRow } from '../../../../shared/api/units';
 import type { FrontEnd } from '../../../../shared/domain/frames';
 import { ApiError } from '../../../lib/api-client';
+import { preloadDrawingCanvas } from '../../drawing';
 import { openInspectionsQuery, useStartInspection } from '../api/inspections';
 import { unitsQuery } from '../api/units';
 import { endName, kindName } from '../lib/format';
@@ -117,6 +118,8 @@ export function StartScreen() {
   const idem = useRef<string>(crypto.randomUUID());
 
   const pick = (u: UnitRow) => {
+    // The walk opens on the drawing: fetch the canvas code while the inspector confirms the F.
+    void preloadDrawingCanvas();
     setUnit(u);
     setSeen(u.frontEnd);
     start.reset();
@@ -169,6 +172,12 @@ export function StartScreen() {
                 ))}
               </div>
             </div>
+            <p className="text-base">
+              The walk follows your routine for this unit type.{' '}
+              <Link to={`routines/${unit.unitTypeKey}`} className="btn ml-2 px-3 text-base">
+                Change the routine
+              </Link>
+            </p>
             <div>
               <h3 className="mb-1 text-xl font-bold">3. Which end carries the F on {unit.roadNumber} in front of you?</h3>
               <p className="mb-3 text-graphite-2">Look at the unit, not the record. Front, left, right and every number follow the F.</p>

@@ -1,14 +1,11 @@
-import { lazy, Suspense, useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import type { FrontEnd, ViewKey } from '../../../../shared/domain/frames';
 import { boxToScreen, viewOrientation, type Camera, type DrawingMode } from '../../../../shared/drawings/screen';
 import type { Drawing, ViewCoord } from '../../../../shared/drawings/types';
 import type { LayoutPart, UnitLayout } from '../../../../shared/layout/unit-layout';
-import type { DrawingCanvasHandle, DrawingPin } from '../../drawing/types';
+import { DrawingCanvas, type DrawingCanvasHandle, type DrawingPin } from '../../drawing';
 import type { PartState } from '../lib/walk';
 import { viewLabel } from '../lib/walk';
-
-// Konva loads only with the drawing, not with the start screen.
-const DrawingCanvas = lazy(() => import('../../drawing/drawing-canvas'));
 
 export interface UnitCanvasProps {
   drawing: Drawing;
@@ -141,33 +138,32 @@ export function UnitCanvas(props: UnitCanvasProps) {
         </button>
       </div>
       <div ref={box} className="relative" style={{ height }}>
-        <Suspense fallback={<div className="flex h-full items-center justify-center rounded-md border-2 border-rule text-lg">Loading the drawing…</div>}>
-          <DrawingCanvas
-            ref={handle}
+        {/* The canvas feature loads Konva on first use and shows its own placeholder meanwhile. */}
+        <DrawingCanvas
+          ref={handle}
+          drawing={drawing}
+          layout={layout}
+          view={view}
+          mode={mode}
+          pins={props.pins}
+          selectedPartId={props.selectedPartId}
+          onSelectPart={props.onSelectPart}
+          height={height}
+        />
+        {camera && width > 0 && (
+          <AreaOutlines
             drawing={drawing}
-            layout={layout}
             view={view}
             mode={mode}
-            pins={props.pins}
+            frontEnd={layout.frontEnd}
+            camera={camera}
+            emphasis={props.emphasis}
+            states={props.states}
             selectedPartId={props.selectedPartId}
-            onSelectPart={props.onSelectPart}
+            width={width}
             height={height}
           />
-          {camera && width > 0 && (
-            <AreaOutlines
-              drawing={drawing}
-              view={view}
-              mode={mode}
-              frontEnd={layout.frontEnd}
-              camera={camera}
-              emphasis={props.emphasis}
-              states={props.states}
-              selectedPartId={props.selectedPartId}
-              width={width}
-              height={height}
-            />
-          )}
-        </Suspense>
+        )}
       </div>
     </div>
   );

@@ -168,17 +168,21 @@ function Walk({ insp }: { insp: ClientInspection }) {
     onSelectPart(lp, where.part.centre);
   };
 
+  // Keyboard users keep their place when a panel they were in goes away.
+  const focusSoon = (id: string) => requestAnimationFrame(() => document.getElementById(id)?.focus());
+
   const ack = () => {
     setAcks(writeAck(insp.id, area.key));
     if (pending) {
       setTarget(pending);
       setPending(null);
-    }
+    } else focusSoon('walk-pass-rest');
   };
 
   const closeForm = () => {
     setTarget(null);
     saveDraft(null);
+    focusSoon(`walk-area-${areaIndex}`);
   };
 
   const coverageError = coverage.error instanceof ApiError ? coverage.error : null;
@@ -289,6 +293,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
                   <li key={a.key}>
                     <button
                       type="button"
+                      id={`walk-area-${i}`}
                       aria-current={current ? 'step' : undefined}
                       onClick={() => goArea(i)}
                       className={`flex min-h-12 w-full items-center gap-2 rounded-md border-2 px-3 py-1 text-left text-lg font-bold focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-accent ${
