@@ -124,17 +124,16 @@ export interface OrderedPart {
  * then by instance id — the order instancesFromFront gives. A moved F counts where it is shown.
  */
 export function tabOrder(parts: readonly OrderedPart[], viewKey: ViewKey, lengthIn: number, markings: readonly PlacedFrontMarking[] = []): string[] {
-  const moved = new Set(markings.filter((m) => m.moved).map((m) => m.instanceId));
+  // The layout already places the F where the unit carries it (markingCentre), so its along/left are
+  // where it is shown; an F is in the order only in the view that shows it (see placeFrontMarkings).
+  void lengthIn;
   const shown = new Map(markings.map((m) => [m.instanceId, m.partId]));
-  const rows = parts
-    // An F is in the order only where it is shown (see placeFrontMarkings).
-    .filter((p) => p.view === viewKey && (p.kind === 'front_marking' ? shown.get(p.instanceId) === p.partId : true))
-    .map((p) => (moved.has(p.instanceId) ? { ...p, along: lengthIn - p.along, left: -p.left + 0 } : p));
+  const rows = parts.filter((p) => p.view === viewKey && (p.kind === 'front_marking' ? shown.get(p.instanceId) === p.partId : true));
   // A moved F drawn only in the partner view has no row in this view: add it from its source row.
   for (const m of markings) {
     if (rows.some((r) => r.instanceId === m.instanceId)) continue;
     const src = parts.find((p) => p.partId === m.partId);
-    if (src) rows.push(m.moved ? { ...src, along: lengthIn - src.along, left: -src.left + 0 } : src);
+    if (src) rows.push(src);
   }
   rows.sort((a, b) => a.along - b.along || b.left - a.left || a.instanceId.localeCompare(b.instanceId));
   return rows.map((r) => r.partId);
