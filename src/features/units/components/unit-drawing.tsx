@@ -66,6 +66,7 @@ function useCameraAttribute(handle: RefObject<DrawingCanvasHandle | null>, box: 
 }
 
 export interface UnitDrawingProps {
+  id?: string;
   unit: UnitRow;
   findings: readonly FindingPinDetail[];
   canChangeFrontEnd: boolean;
@@ -76,7 +77,7 @@ export interface UnitDrawingProps {
 }
 
 /** The unit's drawing with its open findings pinned, the view and mode switches, the what-if preview and (admin) the F change. */
-export function UnitDrawing({ unit, findings, canChangeFrontEnd, selectedPartId, onSelectPart, view, onViewChange }: UnitDrawingProps) {
+export function UnitDrawing({ id, unit, findings, canChangeFrontEnd, selectedPartId, onSelectPart, view, onViewChange }: UnitDrawingProps) {
   const qc = useQueryClient();
   const wide = useWide();
   const [mode, setMode] = useState<DrawingMode>('as_built');
@@ -115,10 +116,10 @@ export function UnitDrawing({ unit, findings, canChangeFrontEnd, selectedPartId,
       </p>
     );
   }
-  const height = wide ? 420 : 300;
+  const height = wide ? 420 : 260;
 
   return (
-    <section aria-label="Drawing" className="space-y-2">
+    <section id={id} aria-label="Drawing" className="scroll-mt-20 space-y-2">
       <div className="flex flex-wrap items-center gap-2">
         <div role="radiogroup" aria-label="View" className="-mx-1 flex max-w-full gap-1.5 overflow-x-auto px-1 pb-1">
           {(drawing.data?.views ?? []).map((v) => (

@@ -20,9 +20,16 @@ import { TagCard } from './tag-card';
 import { UnitDrawing } from './unit-drawing';
 import { UnitHeader } from './unit-header';
 
+const DRAWING_ID = 'unit-drawing';
+
 /** One unit: its facts, its drawing with the open findings pinned, what is due, its tag and its history. */
 export function UnitPage() {
   const { id = '' } = useParams();
+  // A fresh page per unit: the selection, view and preview of one unit never carry over to the next.
+  return <UnitPageFor key={id} id={id} />;
+}
+
+function UnitPageFor({ id }: { id: string }) {
   const unit = useQuery(unitQuery(id));
   const me = useQuery(meQuery());
   const settings = useQuery(settingsQuery());
@@ -65,6 +72,7 @@ export function UnitPage() {
       </Link>
       <UnitHeader unit={u} dueState={dueRow?.state} />
       <UnitDrawing
+        id={DRAWING_ID}
         unit={u}
         findings={details}
         canChangeFrontEnd={!!role && can(role, 'administer')}
@@ -73,9 +81,14 @@ export function UnitPage() {
         view={view}
         onViewChange={setView}
       />
-      <div className="grid gap-4 lg:grid-cols-3">
-        <div className="min-w-0 space-y-4 lg:col-span-2">
-          {tag.data && <TagCard tag={tag.data} canOpenTagPage={!!role && can(role, 'inspect')} timeZone={tz} />}
+      {/* Phones read top to bottom: tag, findings, what is due, then the long history; tablets put due and the legend beside them. */}
+      <div className="grid gap-4 lg:grid-cols-3 lg:items-start">
+        {tag.data?.open && (
+          <div className="min-w-0 lg:col-span-2">
+            <TagCard tag={tag.data} canOpenTagPage={!!role && can(role, 'inspect')} timeZone={tz} />
+          </div>
+        )}
+        <div className="min-w-0 lg:col-span-2">
           {open.isError ? (
             <p role="alert" className="card p-3 font-bold text-federal">
               The open findings could not be loaded: {open.error.message}
@@ -90,9 +103,16 @@ export function UnitPage() {
               onShow={(f) => {
                 setView(f.view);
                 setSelectedPartId(f.partId);
+                document.getElementById(DRAWING_ID)?.scrollIntoView?.({ block: 'start', behavior: 'smooth' });
               }}
             />
           )}
+        </div>
+        <div className="min-w-0 space-y-4 lg:col-start-3 lg:row-span-3 lg:row-start-1">
+          <DueItems items={due.isError ? [] : dueRow?.items} on={due.data?.on} />
+          <OrientationLegend frontEnd={u.frontEnd} />
+        </div>
+        <div className="min-w-0 lg:col-span-2">
           {history.isError ? (
             <p role="alert" className="card p-3 font-bold text-federal">
               The history could not be loaded: {history.error.message}
@@ -102,10 +122,6 @@ export function UnitPage() {
           ) : (
             <p className="card p-3">Loading the history…</p>
           )}
-        </div>
-        <div className="min-w-0 space-y-4">
-          <DueItems items={due.isError ? [] : dueRow?.items} on={due.data?.on} />
-          <OrientationLegend frontEnd={u.frontEnd} />
         </div>
       </div>
     </div>
