@@ -5,6 +5,9 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { defectTypesFor } from '../../shared/defects/catalogue';
 import { FindingForm, type FindingTarget } from '../../src/features/walkaround/components/finding-form';
 
+// Typing with user-event is slow on a busy two-core machine; the default 5 s is too tight.
+vi.setConfig({ testTimeout: 30_000 });
+
 // The defect types the server lists for a pilot (GET /api/defect-types?partKind=pilot), from the shared catalogue.
 const PILOT_TYPES = defectTypesFor('pilot').map((d) => ({
   key: d.key,

@@ -5,6 +5,9 @@ import { MemoryRouter, Route, Routes } from 'react-router-dom';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { StartScreen } from '../../src/features/walkaround/components/start-screen';
 
+// Typing with user-event is slow on a busy two-core machine; the default 5 s is too tight.
+vi.setConfig({ testTimeout: 30_000 });
+
 const UNITS = [
   { id: '11111111-1111-4111-8111-111111111111', roadNumber: 'HRL 4101', unitTypeKey: 'six_axle_road', unitTypeName: 'Six-axle road unit, cab on short hood', frontEnd: 'short_hood', yardName: 'Marlow Yard', nonComplying: false },
   { id: '22222222-2222-4222-8222-222222222222', roadNumber: 'HRL 4103', unitTypeKey: 'six_axle_road', unitTypeName: 'Six-axle road unit, cab on short hood', frontEnd: 'long_hood', yardName: 'Marlow Yard', nonComplying: true },

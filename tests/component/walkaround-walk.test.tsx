@@ -9,6 +9,9 @@ import { parseDrawing } from '../../shared/drawings/parse-drawing';
 import { unitLayout } from '../../shared/layout/unit-layout';
 import { areaLabel, coverageOf, defaultRoutine } from '../../shared/walkaround/routine';
 
+// Typing with user-event is slow on a busy two-core machine; the default 5 s is too tight.
+vi.setConfig({ testTimeout: 30_000 });
+
 // The canvas is another feature's (Konva); here a stand-in offers each part of the view as a button,
 // and reports what the walk asks it to draw.
 const canvasProps: { view?: string; pins?: unknown[]; selectedPartId?: string | null }[] = [];
