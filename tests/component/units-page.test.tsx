@@ -78,7 +78,7 @@ const LEVER = { x: 8.5, y: -31.4, z: 43 };
 type Reply = { status?: number; body?: unknown };
 interface Call { method: string; path: string; body: any }
 
-function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any) => Reply } = {}) {
+function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any) => Reply; tagOpen?: boolean } = {}) {
   const calls: Call[] = [];
   let unit = unitRow();
   const routes: Record<string, (body: any) => Reply> = {
@@ -106,7 +106,11 @@ function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any
         ],
       },
     }),
-    [`GET /api/units/${UNIT_ID}/tag`]: () => ({ body: { open: false, unit: { id: UNIT_ID, roadNumber: 'TR 4101', yardName: null }, tag: null, defects: [] } }),
+    [`GET /api/units/${UNIT_ID}/tag`]: () => ({
+      body: over.tagOpen
+        ? { open: true, unit: { id: UNIT_ID, roadNumber: 'TR 4101', yardName: 'Marlow Yard' }, tag: { id: 't1', openedAt: '2026-11-30T13:21:00Z', openedBy: 'Dana Okafor', place: 'Marlow Yard', destination: null, restrictions: null }, defects: [{ id: FINDING, label: 'Front left uncoupling lever', defect: 'Uncoupling lever bent', rule: '49 CFR Part 231', createdAt: '2026-11-30T13:21:00Z', state: 'open' }] }
+        : { open: false, unit: { id: UNIT_ID, roadNumber: 'TR 4101', yardName: null }, tag: null, defects: [] },
+    }),
     'GET /api/due': () => ({ body: { on: '2026-12-01', timeZone: 'UTC', items: [] } }),
     [`GET /api/inspections/${INSPECTION}`]: () => ({
       body: { id: INSPECTION, kind: 'daily', status: 'signed', inspector: { id: 'p2', name: 'Dana Okafor' }, startedAt: '2026-11-30T12:41:00Z', signedAt: '2026-11-30T13:21:00Z', place: 'Marlow Yard', frontEndSeen: 'short_hood', coverage: { total: 115, done: 115, passed: 114, findings: 1, notApplicable: 0, complete: true }, findings: [] },
@@ -271,5 +275,19 @@ describe('unit page', () => {
     expect(within(signed).queryByRole('link', { name: 'Record' })).toBeNull();
     await user.click(within(signed).getByRole('button', { name: 'Show record' }));
     expect(await within(signed).findByTestId('inspection-inline')).toHaveTextContent('115 of 115 parts covered: 114 passed, 1 finding');
+  });
+
+  it('shows the open non-complying tag (49 CFR 229.9) with a link to the tag page for those who print it', async () => {
+    setup({ role: 'inspector', tagOpen: true });
+    const card = (await screen.findByRole('heading', { name: 'Non-complying tag open' })).closest('section')!;
+    expect(card).toHaveTextContent('Opened 30 Nov 2026, 13:21 by Dana Okafor at Marlow Yard');
+    expect(card).toHaveTextContent('Front left uncoupling lever: Uncoupling lever bent');
+    expect(within(card).getByRole('link', { name: 'Open the tag' })).toHaveAttribute('href', `/walkaround/units/${UNIT_ID}/tag`);
+  });
+
+  it('shows no tag card when no tag is open', async () => {
+    setup({ role: 'inspector' });
+    await screen.findByTestId('history');
+    expect(screen.queryByRole('heading', { name: 'Non-complying tag open' })).toBeNull();
   });
 });
