@@ -118,7 +118,8 @@ export interface FitPadding {
 }
 /** Room for a FRONT / REAR word beside each end and a LEFT / RIGHT word above and below; less on a small screen. */
 export function defaultFitPadding(vp: Viewport): FitPadding {
-  return { x: Math.min(88, vp.width * 0.12), y: Math.min(44, vp.height * 0.1) };
+  // At least room for the FRONT / REAR tags beside the drawing, even on a phone.
+  return { x: Math.min(88, Math.max(66, vp.width * 0.12)), y: Math.min(44, vp.height * 0.1) };
 }
 
 /** The camera that shows the whole box, centred, as large as the viewport allows less the padding. */
