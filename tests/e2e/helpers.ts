@@ -7,5 +7,5 @@ export async function signIn(page: Page, role: string) {
   await page.getByLabel('E-mail').fill(`${role}@demo.example`);
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Sign out' })).toBeVisible();
 }
