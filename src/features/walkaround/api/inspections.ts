@@ -3,6 +3,7 @@ import type { CoverageBody, FindingBody, FindingView, InspectionView, StartInspe
 import { coverageOf } from '../../../../shared/walkaround/routine';
 import type { z } from 'zod';
 import { api } from '../../../lib/api-client';
+import { withQueued } from '../offline/sync';
 
 export interface InspectionListItem {
   id: string;
@@ -33,7 +34,11 @@ export const openInspectionsQuery = () =>
   });
 
 export const inspectionQuery = (id: string) =>
-  queryOptions({ queryKey: inspectionKeys.one(id), queryFn: ({ signal }) => api<ClientInspection>(`/inspections/${id}`, { signal }) });
+  queryOptions({
+    queryKey: inspectionKeys.one(id),
+    // Findings still waiting in the offline queue are shown with the stored ones.
+    queryFn: async ({ signal }) => withQueued(await api<ClientInspection>(`/inspections/${id}`, { signal })),
+  });
 
 /** Coverage as the server would count it, for an optimistic change. */
 function withItems(insp: ClientInspection, items: ClientInspection['items']): ClientInspection {

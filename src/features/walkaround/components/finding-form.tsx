@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import type { FindingView } from '../../../../shared/api/walkaround';
@@ -13,6 +13,7 @@ import { useAddFinding } from '../api/inspections';
 import { liveCheck, readingKind } from '../lib/check-input';
 import { emptyFindingForm, findingFormSchema, formFieldOf, readingOf, toFindingBody, type FindingFormValues } from '../lib/finding-form';
 import { PhotoPicker, PhotoUploads } from './photo-uploads';
+import { queueFinding } from '../offline/sync';
 import { WeightMark } from './weight-mark';
 
 /** The part and spot a finding is pinned on. */
@@ -95,6 +96,7 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
   const ids = { heading: useId(), value: useId(), nominal: useId(), adjoining: useId(), lastDone: useId(), note: useId(), photos: useId() };
   const types = useQuery(defectTypesQuery(target.kind));
   const add = useAddFinding(inspectionId);
+  const qc = useQueryClient();
   const [idem] = useState(() => draft?.idempotencyKey ?? newKey());
   const [files, setFiles] = useState<File[]>([]);
   const [moreFiles, setMoreFiles] = useState<File[]>([]);
@@ -145,22 +147,20 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
     }
     const passed = outcome?.ok && (outcome.output as { result: string }).result === 'pass';
     const weight = keepAsNote || passed ? 'note' : (defect?.weight ?? 'note');
+    const preview = {
+      partId: target.partId,
+      instanceId: target.instanceId,
+      partKind: target.kind,
+      view: target.view,
+      body: viewPointToBody(target.view, target.at, bodyPoint(target.centre.x, target.centre.y, target.centre.z)),
+      label: target.label,
+      partLabel: target.label,
+      defectLabel: defect?.label ?? v.defectType,
+      weight,
+      rule: defect?.rule ?? null,
+    };
     add.mutate(
-      {
-        body,
-        preview: {
-          partId: target.partId,
-          instanceId: target.instanceId,
-          partKind: target.kind,
-          view: target.view,
-          body: viewPointToBody(target.view, target.at, bodyPoint(target.centre.x, target.centre.y, target.centre.z)),
-          label: target.label,
-          partLabel: target.label,
-          defectLabel: defect?.label ?? v.defectType,
-          weight,
-          rule: defect?.rule ?? null,
-        },
-      },
+      { body, preview },
       {
         onSuccess: (f) => {
           setAsking(null);
@@ -169,6 +169,17 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
         },
         onError: (e) => {
           if (!(e instanceof ApiError)) return setGeneral('Something went wrong; the finding was not stored.');
+          // No connection: kept on the device with its photos and sent when the connection returns.
+          if (e.status === 0) {
+            void queueFinding(qc, { inspectionId, body: { ...body, idempotencyKey: idem }, preview, photos: files.map((f) => ({ blob: f, name: f.name })) }).then(
+              () => {
+                onDraft?.(null);
+                onClose();
+              },
+              () => setGeneral('No connection, and this device could not keep the finding; it stays in this form.'),
+            );
+            return;
+          }
           if (e.code === 'check_passed') {
             const c = (e.extra?.check ?? {}) as { limit?: string; source?: string };
             setAsking({ limit: c.limit ?? '', source: c.source ?? '' });

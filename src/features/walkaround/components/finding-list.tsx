@@ -35,7 +35,7 @@ export function FindingList({ findings, inspectionId, editable = false, empty = 
           <p className="flex flex-wrap items-center gap-x-3 gap-y-1">
             <WeightMark weight={f.weight} />
             <strong className="text-lg">{f.label}</strong>
-            {f.pending && <span className="rounded bg-paper-2 px-1.5 text-base">Sending…</span>}
+            {f.pending && <span className="rounded bg-paper-2 px-1.5 text-base">{f.id.startsWith('queued-') ? 'Waiting to send' : 'Sending…'}</span>}
             {!f.pending && f.state !== 'open' && <span className="rounded bg-paper-2 px-1.5 text-base">{f.state.replace('_', ' ')}</span>}
           </p>
           <p className="text-lg">{f.defectLabel}</p>
