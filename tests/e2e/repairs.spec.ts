@@ -5,7 +5,7 @@
 // (49 CFR 229.21: once each calendar day). The finding is made here through the API; the demo data
 // is not relied on beyond its accounts and units.
 import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { DEMO_PASSWORD } from './helpers';
+import { DEMO_PASSWORD, signIn } from './helpers';
 
 const SHOTS = '.tmp/screens';
 // An 8×8 grey PNG; the server decides its type by its bytes.
@@ -13,21 +13,12 @@ const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAgAAAAICAIAAABLbSncAAAACXBIWXM
 const PILOT_LOW = { partId: 'pl-pilot_sh', view: 'plan', x: 18, y: 0, defectType: 'pilot_height_out_of_limit', measurement: { value: 2.5, unit: 'in' } };
 const MOTOR_NOTE = { partId: 'pl-traction_motor_2', view: 'plan', x: 173, y: 0, defectType: 'traction_motor_other', note: 'Weeping oil at the gear case' };
 
-/** Signs in without relying on the name badge, which the shell shows only on wide screens. */
-async function signInAs(page: Page, role: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${role}@demo.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in')).toBeAttached();
-}
-
 async function newSession(browser: Browser, role: string, viewport = { width: 1024, height: 768 }) {
   const ctx = await browser.newContext({ viewport });
   const page = await ctx.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await signInAs(page, role);
+  await signIn(page, role);
   return { ctx, page, errors };
 }
 
@@ -196,6 +187,11 @@ test('on a phone the queue and the due board become stacked cards with large tar
     expect(linkBox.height).toBeGreaterThanOrEqual(48);
   }
   await fm.page.screenshot({ path: `${SHOTS}/repairs-queue-390.png` });
+  if ((await rows.count()) > 0) {
+    await rows.first().getByRole('link').click();
+    await expect(fm.page.getByRole('heading', { level: 2, name: 'History' })).toBeVisible();
+    await fm.page.screenshot({ path: `${SHOTS}/repairs-finding-390.png`, fullPage: true });
+  }
   await fm.page.goto('/due');
   await expect(fm.page.getByTestId('due-row').first()).toBeVisible();
   await expect(fm.page.getByRole('table', { name: 'Due board' }).locator('thead')).toBeHidden();

@@ -22,11 +22,10 @@ interface Props {
   /** People the foreman can pick from. */
   people: { id: string; name: string }[];
   onRepaired: (photos: File[]) => void;
-  onDone?: (r: ActionResult, action: FindingAction) => void;
 }
 
 /** The actions the person's role and the finding's state allow, each sent with the version on screen. */
-export function FindingActions({ finding, me, people, onRepaired, onDone }: Props) {
+export function FindingActions({ finding, me, people, onRepaired }: Props) {
   const qc = useQueryClient();
   const act = useFindingAction(finding.id);
   const [open, setOpen] = useState<FindingAction | null>(null);
@@ -43,7 +42,6 @@ export function FindingActions({ finding, me, people, onRepaired, onDone }: Prop
       onSuccess: (r) => {
         setOpen(null);
         after?.(r);
-        onDone?.(r, body.action);
       },
     });
 
