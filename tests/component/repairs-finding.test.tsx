@@ -292,6 +292,20 @@ describe('finding page', () => {
     expect(calls.some((c) => c.method === 'POST' && c.path === `/api/units/${UNIT}/tag/clear`)).toBe(true);
   });
 
+  it('counts only open and in-repair federal findings as keeping the tag on; repaired ones wait for verification', async () => {
+    const r = routes('foreman', finding({ state: 'repaired', version: 3 }), {
+      open: true,
+      railroad: { name: 'Test', reportingMark: 'TR', timeZone: 'America/Chicago' },
+      unit: { id: UNIT, roadNumber: 'HRL 4104', yardName: null },
+      tag: { id: 't1', openedAt: '2026-03-02T13:05:00.000Z', openedBy: 'Dana Okafor', place: null, destination: null, restrictions: null },
+      defects: [{ id: FID, label: 'Front pilot', defect: 'Pilot height', rule: '49 CFR 229.123', createdAt: '2026-03-02T13:05:00.000Z', state: 'repaired' }],
+    });
+    mockApi(r);
+    renderFinding();
+    expect(await screen.findByRole('button', { name: 'Clear the non-complying tag' })).toBeInTheDocument();
+    expect(screen.getByText('Repaired, waiting for an inspector to verify: Front pilot.')).toBeInTheDocument();
+  });
+
   it('after a reload, reads who cleared the tag and when from the unit history', async () => {
     const r = routes('inspector', finding({ state: 'verified', version: 4 }), {
       open: false,

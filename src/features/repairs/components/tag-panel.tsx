@@ -1,4 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
+import { OPEN_STATES } from '../../../../shared/repairs/transitions';
+import type { FindingState } from '../../../../shared/domain/states';
 import { ApiError } from '../../../lib/api-client';
 import { unitHistoryQuery, unitTagQuery, useClearTag } from '../api/tag';
 import { formatWhen } from '../lib/format';
@@ -25,7 +27,9 @@ export function TagPanel({ unitId, roadNumber, canClear, timeZone }: { unitId: s
     );
   }
   const t = tag.data.tag;
-  const left = tag.data.defects;
+  // The tag lists repaired findings too; only open and in-repair ones keep the tag on (the server's rule for clearing).
+  const left = tag.data.defects.filter((d) => OPEN_STATES.includes(d.state as FindingState));
+  const waiting = tag.data.defects.filter((d) => d.state === 'repaired');
   return (
     <section aria-label="Non-complying tag" className="card space-y-2 border-federal p-3">
       <p className="font-bold text-federal">
@@ -38,6 +42,11 @@ export function TagPanel({ unitId, roadNumber, canClear, timeZone }: { unitId: s
       ) : (
         <>
           <p>No federal finding on this unit needs work any more.</p>
+          {waiting.length > 0 && (
+            <p className="text-graphite-2">
+              Repaired, waiting for an inspector to verify: {waiting.map((d) => d.label).join('; ')}.
+            </p>
+          )}
           {canClear && (
             <button type="button" className="btn-primary" disabled={clear.isPending} onClick={() => clear.mutate(unitId)}>
               Clear the non-complying tag
