@@ -17,8 +17,8 @@ export function OfflineBanner({ failed = false }: { failed?: boolean }) {
   if (online && !failed) return null;
   return (
     <div role="status" className="no-print rounded-md border-2 border-graphite bg-graphite p-3 text-lg font-bold text-paper">
-      No connection. Everything you have done is stored on the server; an unsent finding stays in its form. Send it again when the
-      connection returns.
+      No connection. Findings you pin are kept on this device and sent, in order, when the connection returns; anything else you do
+      waits for it.
     </div>
   );
 }
