@@ -130,7 +130,10 @@ export function StartScreen() {
     if (!unit) return;
     start.mutate(
       { unitId: unit.id, kind, frontEndSeen: seen, idempotencyKey: idem.current },
-      { onSuccess: (insp) => navigate(`inspections/${insp.id}`) },
+      {
+        // An open inspection of the same kind is resumed as it was started, F end included.
+        onSuccess: (insp) => navigate(`inspections/${insp.id}`, { state: insp.frontEndSeen !== seen ? { resumedWith: insp.frontEndSeen } : null }),
+      },
     );
   };
 

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
-import { Link, Navigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useLocation, useParams, useSearchParams } from 'react-router-dom';
 import { VIEW_KEYS, type ViewKey } from '../../../../shared/domain/frames';
 import type { DrawingMode } from '../../../../shared/drawings/screen';
 import type { ViewCoord } from '../../../../shared/drawings/types';
@@ -89,8 +89,9 @@ function Walk({ insp }: { insp: ClientInspection }) {
   const headerH = useHeaderHeight();
   const [params, setParams] = useSearchParams();
   const [acks, setAcks] = useState(() => readAcks(insp.id));
-  const [draft, setDraft] = useState<FindingDraft | null>(() => readDraft(insp.id));
-  const [target, setTarget] = useState<FindingTarget | null>(() => draft?.target ?? null);
+  // The unsent form lives in sessionStorage; a ref (not state) so typing does not redraw the canvas.
+  const draft = useRef<FindingDraft | null>(null);
+  const [target, setTarget] = useState<FindingTarget | null>(() => (draft.current = readDraft(insp.id))?.target ?? null);
   const [pending, setPending] = useState<FindingTarget | null>(null);
 
   const areas = insp.routine.areas;
@@ -137,7 +138,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
   const saveDraft = useCallback(
     (d: FindingDraft | null) => {
       writeDraft(insp.id, d);
-      setDraft(d);
+      draft.current = d;
     },
     [insp.id],
   );
@@ -188,6 +189,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
   const coverageError = coverage.error instanceof ApiError ? coverage.error : null;
   const busy = coverage.isPending;
   const differs = insp.frontEndSeen !== insp.frontEndRecorded;
+  const resumedWith = (useLocation().state as { resumedWith?: string } | null)?.resumedWith;
   const leftCol = useRef<HTMLDivElement>(null);
   const leftH = useElementHeight(leftCol, wide);
   // Wide screens: the drawing takes the height left under the bar; phones: a fixed strip on top.
@@ -202,7 +204,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
       target={target}
       humpStencilled={unitQ.data?.humpStencilled ?? false}
       timeZone={insp.railroad.timeZone}
-      draft={draft && draft.target.partId === target.partId ? draft : null}
+      draft={draft.current && draft.current.target.partId === target.partId ? draft.current : null}
       onDraft={saveDraft}
       onClose={closeForm}
     />
@@ -244,6 +246,12 @@ function Walk({ insp }: { insp: ClientInspection }) {
       </div>
 
       <OfflineBanner failed={coverageError?.status === 0} />
+      {resumedWith && (
+        <p role="status" className="rounded-md border-l-8 border-shop bg-paper-2 p-2 text-base">
+          This is your open inspection of {insp.unit.roadNumber}, resumed as you started it: it keeps the F on the {endName(insp.frontEndSeen)}, the end you
+          confirmed then.
+        </p>
+      )}
       {differs && (
         <p className="rounded-md border-l-8 border-shop bg-paper-2 p-2 text-base">
           You saw the F on the {endName(insp.frontEndSeen)}; the record says {endName(insp.frontEndRecorded)}. The foreman and admin have been told; this
