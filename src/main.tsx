@@ -1,3 +1,4 @@
+import './lib/zod-config';
 import '@fontsource/roboto-condensed/400.css';
 import '@fontsource/roboto-condensed/700.css';
 import './styles/app.css';

@@ -15,6 +15,15 @@ export function peopleRoutes(deps: Deps): RouteDef[] {
       handler: async () => ({ body: { items: await svc.list() } }),
     }),
     route({
+      method: 'get',
+      path: '/people/assignable',
+      access: CAN.repair,
+      summary: 'Active people a repair can be assigned to (foremen and inspectors)',
+      handler: async () => ({
+        body: { items: (await svc.list()).filter((p) => p.active && (p.role === 'foreman' || p.role === 'inspector')).map(({ id, name, role, yardId }) => ({ id, name, role, yardId })) },
+      }),
+    }),
+    route({
       method: 'post',
       path: '/people',
       access: CAN.administer,

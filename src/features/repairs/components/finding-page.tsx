@@ -1,3 +1,4 @@
+import { assignableQuery } from '../api/assignable';
 import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState, type ReactNode } from 'react';
 import { Link, useLocation, useParams } from 'react-router-dom';
@@ -46,16 +47,18 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
   const queue = useQuery(queueQuery({}));
   const [extra, setExtra] = useState<File[]>([]);
   const overdue = useQuery(dueStatesQuery());
-  // Until the people list is open to foremen, pick from yourself and whoever already holds work.
+  const assignable = useQuery(assignableQuery(foreman));
+  // Everyone a repair can go to, plus whoever already holds work (names for the history).
   const people = useMemo(() => {
     const m = new Map<string, string>([[me.id, `${me.name} (you)`]]);
+    for (const p of assignable.data?.items ?? []) if (!m.has(p.id)) m.set(p.id, `${p.name} (${p.role})`);
     for (const i of queue.data?.items ?? []) if (i.assignedTo && i.assigneeName && !m.has(i.assignedTo)) m.set(i.assignedTo, i.assigneeName);
     for (const e of f.events) {
       const d = e.details ?? {};
       if (e.kind === 'assigned' && typeof d.assigneeId === 'string' && typeof d.assigneeName === 'string' && !m.has(d.assigneeId)) m.set(d.assigneeId, d.assigneeName);
     }
     return [...m].map(([id, name]) => ({ id, name }));
-  }, [me, queue.data, f.events]);
+  }, [me, queue.data, f.events, assignable.data]);
   const photosOf = (eventId: string | null) => f.photos.filter((p) => p.eventId === eventId);
   const created = f.events.find((e) => e.kind === 'created');
   return (
