@@ -97,6 +97,8 @@ test('offline: three findings (one with a photo) wait on the device, arrive once
   const waiting = page.getByTestId('offline-waiting');
   await expect(waiting).toContainText('Waiting to send: 3 findings');
   await expect(waiting).toContainText('(1 photo)');
+  // The waiting findings already count the pilot as covered, as the server will (a part with a finding is done).
+  await expect(page.getByTestId('coverage')).toContainText('1 with a finding');
   await expect(page.locator('[data-testid=finding][data-pending=true]')).toHaveCount(3);
   await expect(page.locator('[data-testid=finding][data-pending=true]').first()).toContainText('Waiting to send');
   // Nothing reached the server (page.request is not the browser's network).

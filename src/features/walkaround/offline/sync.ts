@@ -1,6 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { get, set } from 'idb-keyval';
 import { useSyncExternalStore } from 'react';
+import { coverageOf } from '../../../../shared/walkaround/routine';
 import { api } from '../../../lib/api-client';
 import type { ClientFinding, ClientInspection } from '../api/inspections';
 import { uploadPhoto } from '../api/photos';
@@ -59,11 +60,13 @@ export function withQueued(insp: ClientInspection, state: QueueState = offlineQu
   const base = insp.findings.filter((f) => !f.id.startsWith('queued-'));
   if (mine.length === 0 && base.length === insp.findings.length) return insp;
   const ids = new Set(mine.map((q) => q.preview.instanceId));
-  return {
-    ...insp,
-    findings: [...base, ...mine.map((q) => queuedAsFinding(q, insp))],
-    items: [...insp.items.filter((i) => !ids.has(i.instanceId)), ...[...ids].map((id) => ({ instanceId: id, state: 'finding', reason: null }))],
-  };
+  const items = [...insp.items.filter((i) => !ids.has(i.instanceId)), ...[...ids].map((id) => ({ instanceId: id, state: 'finding', reason: null }))];
+  // Counted as the server will count it once the finding arrives (a part with a finding is covered).
+  const coverage = coverageOf(
+    insp.routine.areas,
+    items.map((i) => ({ instanceId: i.instanceId, state: i.state as 'passed' | 'finding' | 'not_applicable' | 'gap', reason: i.reason })),
+  );
+  return { ...insp, findings: [...base, ...mine.map((q) => queuedAsFinding(q, insp))], items, coverage: { ...insp.coverage, ...coverage } };
 }
 
 const inspectionKey = (id: string) => ['inspections', 'one', id] as const;
