@@ -39,7 +39,7 @@ export async function startFakeSmtp(port: number, host = '127.0.0.1'): Promise<{
       stream.on('data', (c: Buffer) => chunks.push(c));
       stream.on('end', () => {
         const raw = Buffer.concat(chunks).toString('utf8');
-        const subject = /^Subject: (.*)$/im.exec(raw)?.[1]?.trim() ?? '';
+        const subject = decodeHeader(/^Subject: (.*)$/im.exec(unfoldHeaders(raw))?.[1]?.trim() ?? '');
         received.push({
           to: session.envelope.rcptTo.map((r) => r.address),
           from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
@@ -62,4 +62,22 @@ export async function startFakeSmtp(port: number, host = '127.0.0.1'): Promise<{
     received,
     close: () => new Promise<void>((r) => server.close(() => r())),
   };
+}
+
+/** Joins folded header lines (RFC 5322 §2.2.3) of the header block. */
+export function unfoldHeaders(raw: string): string {
+  const end = raw.search(/\r?\n\r?\n/);
+  const head = end === -1 ? raw : raw.slice(0, end);
+  return head.replace(/\r?\n[ \t]+/g, ' ');
+}
+
+/** Decodes RFC 2047 encoded words (=?utf-8?Q?...?= and =?utf-8?B?...?=) as nodemailer writes them. */
+export function decodeHeader(v: string): string {
+  return v
+    .replace(/\?=\s+=\?/g, '?==?')
+    .replace(/=\?([^?]+)\?([QqBb])\?([^?]*)\?=/g, (_m, _cs: string, enc: string, text: string) => {
+      if (enc.toUpperCase() === 'B') return Buffer.from(text, 'base64').toString('utf8');
+      const bytes = text.replace(/_/g, ' ').replace(/=([0-9A-Fa-f]{2})/g, (_x, h: string) => String.fromCharCode(parseInt(h, 16)));
+      return Buffer.from(bytes, 'latin1').toString('utf8');
+    });
 }

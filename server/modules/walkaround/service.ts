@@ -15,6 +15,7 @@ import type { Person } from '../../http/routes';
 import { audit } from '../../lib/audit';
 import type { AuthService } from '../auth/service';
 import { enqueueMail } from '../outbox/service';
+import { priorRepairs } from '../hot-spots/repository';
 import type { UnitsService } from '../units/service';
 import { walkaroundRepository, type FindingRow, type InspectionRow } from './repository';
 
@@ -282,6 +283,8 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
           createdBy: person.id,
           idempotencyKey: body.idempotencyKey ?? null,
         });
+        // Hot spots' repeat rule reads the days since this part's last repair; kept at write time.
+        await priorRepairs(tx).fill(f.id);
         await r.insertEvent({ findingId: f.id, kind: 'created', toState: 'open', actorId: person.id, details: { label, weight } });
         await r.markFindingItem(insp.id, part.instanceId);
         await r.touchInspection(insp.id);
@@ -462,6 +465,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       const insp = await load(id);
       if (insp.status !== 'signed') throw new AppError('conflict', 'Only a signed record takes corrections; change the open inspection itself');
       if (insp.correctsId) throw new AppError('conflict', 'Correct the original record, not a correction');
+      if (insp.inspectorId !== person.id && person.role !== 'foreman') throw forbidden('Only the inspector who signed the record, or a foreman, adds a correction to it');
       if (!(await deps.auth.verifyPassword(person.id, password))) throw new AppError('validation', 'The password is wrong', { password: 'Wrong password' });
       const row = await db.transaction(async (tx) => {
         const r = walkaroundRepository(tx);

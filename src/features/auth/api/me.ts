@@ -2,14 +2,26 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { LoginBody, Me } from '../../../../shared/api/auth';
 import { api, ApiError } from '../../../lib/api-client';
 
+// The last signed-in person, so a walkaround reloaded in a yard with no signal still opens; the server
+// checks the session again on every request once the connection is back.
+const LAST_ME = 'hoodline.lastMe';
+const remember = (me: Me | null) => (me ? localStorage.setItem(LAST_ME, JSON.stringify(me)) : localStorage.removeItem(LAST_ME));
+
 export const meQuery = () =>
   queryOptions({
     queryKey: ['auth', 'me'],
     queryFn: async (): Promise<Me | null> => {
       try {
-        return await api<Me>('/auth/me');
+        const me = await api<Me>('/auth/me');
+        remember(me);
+        return me;
       } catch (e) {
-        if (e instanceof ApiError && e.status === 401) return null;
+        if (e instanceof ApiError && e.status === 401) {
+          remember(null);
+          return null;
+        }
+        const last = e instanceof ApiError && e.status === 0 ? localStorage.getItem(LAST_ME) : null;
+        if (last) return JSON.parse(last) as Me;
         throw e;
       }
     },
@@ -24,6 +36,7 @@ export function useLogin() {
     mutationFn: (body: LoginBody) => api<Me>('/auth/login', { method: 'POST', body }),
     onSuccess: (me) => {
       qc.clear();
+      remember(me);
       qc.setQueryData(meQuery().queryKey, me);
     },
   });
@@ -35,6 +48,7 @@ export function useLogout() {
     mutationFn: (everywhere: boolean) => api<void>(everywhere ? '/auth/logout-everywhere' : '/auth/logout', { method: 'POST' }),
     onSettled: () => {
       qc.clear();
+      remember(null);
       qc.setQueryData(meQuery().queryKey, null);
     },
   });
