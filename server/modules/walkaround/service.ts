@@ -9,6 +9,7 @@ import type { Drawing } from '../../../shared/drawings/types';
 import type { LayoutPart } from '../../../shared/layout/unit-layout';
 import { bodyToFront, pinLabel, pinSide, viewPointToBody, type DerivedPart } from '../../../shared/orientation';
 import { areaLabel, canSign, coverageOf, defaultRoutine } from '../../../shared/walkaround/routine';
+import { checkInputFor as sharedCheckInputFor } from '../../../shared/walkaround/check-input';
 import type { Db } from '../../db/client';
 import { AppError, forbidden, notFound } from '../../http/errors';
 import type { Person } from '../../http/routes';
@@ -58,29 +59,9 @@ export function toFindingView(f: FindingRow, photoIds: string[] = []): FindingVi
   };
 }
 
-/** Builds the input of a defect's rule check from what the inspector entered and what the unit says. */
-export function checkInputFor(defect: DefectType, body: Pick<FindingBody, 'measurement' | 'lastDone'>, ctx: { humpStencilled: boolean; today: string }): Record<string, unknown> | null {
-  const m = body.measurement;
-  const preset = defect.checkPreset ?? {};
-  switch (defect.check) {
-    case 'pilot_height':
-      return m ? { value: m.value, unit: m.unit, service: ctx.humpStencilled ? 'hump_yard' : 'road', stencilled: ctx.humpStencilled, ...preset } : null;
-    case 'chain_wear':
-      return m ? { nominal: m.nominal, measured: m.value, unit: m.unit } : null;
-    case 'wheel_flat':
-      return m ? { length: m.value, ...(m.adjoining ? { adjoiningLength: m.adjoining } : {}), unit: m.unit, ...preset } : null;
-    case 'flange_thickness':
-    case 'rim_thickness':
-    case 'tread_hollow':
-      return m ? { value: m.value, unit: m.unit, ...preset } : null;
-    case 'interval':
-      return body.lastDone ? { ...preset, lastDone: body.lastDone, on: ctx.today } : null;
-    case 'sanders':
-      return body.lastDone ? { discovered: body.lastDone, on: ctx.today } : null;
-    default:
-      return null;
-  }
-}
+/** Builds the input of a defect's rule check; the same function the finding form runs live. */
+export const checkInputFor = (defect: DefectType, body: Pick<FindingBody, 'measurement' | 'lastDone'>, ctx: { humpStencilled: boolean; today: string }) =>
+  sharedCheckInputFor(defect, { ...body.measurement, lastDone: body.lastDone }, ctx);
 
 const asDerived = (p: LayoutPart): DerivedPart => ({
   instanceId: p.instanceId,

@@ -1,5 +1,6 @@
 import { runCheck, type RunCheckOutcome } from '../../../../shared/api/checks';
 import type { DefectTypeItem } from '../api/defect-types';
+import { checkInputFor as sharedCheckInputFor } from '../../../../shared/walkaround/check-input';
 
 export interface ReadingDraft {
   value?: number;
@@ -9,32 +10,9 @@ export interface ReadingDraft {
   lastDone?: string;
 }
 
-/**
- * The input of a defect's rule check from what the form holds; it mirrors the server's
- * checkInputFor (server/modules/walkaround/service.ts) so the live answer is the one the server gives.
- */
-export function checkInputFor(defect: Pick<DefectTypeItem, 'check' | 'checkPreset'>, r: ReadingDraft, ctx: { humpStencilled: boolean; today: string }): Record<string, unknown> | null {
-  const preset = defect.checkPreset ?? {};
-  const has = r.value !== undefined;
-  switch (defect.check) {
-    case 'pilot_height':
-      return has ? { value: r.value, unit: r.unit, service: ctx.humpStencilled ? 'hump_yard' : 'road', stencilled: ctx.humpStencilled, ...preset } : null;
-    case 'chain_wear':
-      return has ? { nominal: r.nominal, measured: r.value, unit: r.unit } : null;
-    case 'wheel_flat':
-      return has ? { length: r.value, ...(r.adjoining ? { adjoiningLength: r.adjoining } : {}), unit: r.unit, ...preset } : null;
-    case 'flange_thickness':
-    case 'rim_thickness':
-    case 'tread_hollow':
-      return has ? { value: r.value, unit: r.unit, ...preset } : null;
-    case 'interval':
-      return r.lastDone ? { ...preset, lastDone: r.lastDone, on: ctx.today } : null;
-    case 'sanders':
-      return r.lastDone ? { discovered: r.lastDone, on: ctx.today } : null;
-    default:
-      return null;
-  }
-}
+/** The same function the server runs when it stores the finding (one copy, in shared/). */
+export const checkInputFor = (defect: Pick<DefectTypeItem, 'check' | 'checkPreset'>, r: ReadingDraft, ctx: { humpStencilled: boolean; today: string }) =>
+  sharedCheckInputFor(defect, r, ctx);
 
 /** Which inputs a defect's check reads. */
 export function readingKind(defect: Pick<DefectTypeItem, 'check' | 'measurement'> | undefined): 'none' | 'length' | 'chain' | 'spot' | 'date' {
