@@ -11,6 +11,7 @@ import { FRONT_ENDS } from '../shared/domain/frames';
 import { isPartKind } from '../shared/domain/parts';
 import type { Drawing } from '../shared/drawings/types';
 import { deriveLayout, pinLabel } from '../shared/orientation';
+import { REFRESH_ALL_PRIOR_REPAIR_DAYS } from '../server/modules/hot-spots/repository';
 
 export interface BenchSize {
   units: number;
@@ -196,6 +197,10 @@ export async function seedBench(pool: pg.Pool, drawings: ReadonlyMap<string, Dra
       [size.findings, per],
     );
     log(`  findings: ${size.findings.toLocaleString('en-US')} in ${((Date.now() - t1) / 1000).toFixed(1)} s`);
+    // The days since each finding's part last had its defect repaired (the repeat rule), in one pass, as the app keeps it.
+    const tp = Date.now();
+    await c.query(REFRESH_ALL_PRIOR_REPAIR_DAYS);
+    log(`  prior_repair_days filled in ${((Date.now() - tp) / 1000).toFixed(1)} s`);
     const t2 = Date.now();
     for (const i of [...insIdx, ...finIdx]) await c.query(i.indexdef);
     await c.query(`set session_replication_role = origin`);

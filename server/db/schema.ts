@@ -272,6 +272,12 @@ export const findings = pgTable(
     voidReason: text('void_reason'),
     version: integer('version').notNull().default(1),
     idempotencyKey: text('idempotency_key'),
+    /**
+     * Calendar days (railroad zone) from the latest repair of a non-voided finding of the same unit,
+     * physical part and defect type, repaired no later than this one was found, to this one's day;
+     * null when there is none. Kept at write time so the repeat rule is one comparison at query time.
+     */
+    priorRepairDays: integer('prior_repair_days'),
   },
   (t) => [
     check('findings_state', inList('state', ['open', 'in_repair', 'repaired', 'verified', 'voided'])),
@@ -285,6 +291,12 @@ export const findings = pgTable(
     index('findings_type_created').on(t.unitTypeKey, t.createdAt),
     index('findings_inspection').on(t.inspectionId),
     index('findings_repeat').on(t.unitId, t.instanceId, t.defectType, t.repairedAt),
+    // Hot spots read a unit type's findings in a date range from this index alone (an index-only
+    // scan): every column the screen groups, counts or filters on, the repeat day count included.
+    index('findings_hot_spots_cover').on(
+      t.unitTypeKey, t.createdAt, t.state, t.partKind, t.label, t.partLabel, t.unitId,
+      t.defectType, t.weight, t.inspectionId, t.frontAlong, t.frontLeft, t.priorRepairDays,
+    ),
     uniqueIndex('findings_idem').on(t.createdBy, t.idempotencyKey),
   ],
 );

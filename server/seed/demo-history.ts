@@ -8,6 +8,7 @@ import { bodyToFront, pinLabel } from '../../shared/orientation';
 import { bodyPoint } from '../../shared/domain/frames';
 import { defaultRoutine } from '../../shared/walkaround/routine';
 import type { Tx } from '../db/client';
+import { priorRepairs } from '../modules/hot-spots/repository';
 
 /** Small deterministic generator so every demo database tells the same story. */
 function rng(seed: number) {
@@ -137,6 +138,8 @@ export async function seedHistory(tx: Tx, ctx: SeedCtx): Promise<{ inspections: 
      where i.status = 'signed'`);
   for (const r of findingRows) Object.assign(r, { version: 1 });
   await insertJson('findings', findingRows);
+  // Days since each finding's part last had this defect repaired (the hot spots repeat rule), in one pass.
+  await priorRepairs(tx).refreshAll();
   for (const r of eventRows) Object.assign(r, { id: crypto.randomUUID(), details: r.details ? JSON.parse(String(r.details)) : null });
   await insertJson('finding_events', eventRows);
   await tx.execute(sql`

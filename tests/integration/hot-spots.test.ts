@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadDrawingsFromDir } from '../../server/drawings/load';
 import { binPins, gridFor } from '../../shared/hot-spots/grid';
 import { findRepeats } from '../../shared/hot-spots/repeats';
+import { priorRepairs } from '../../server/modules/hot-spots/repository';
 import { deriveLayout, pinLabel, pinSide } from '../../shared/orientation';
 import type { FrontEnd, ViewKey } from '../../shared/domain/frames';
 import { startTestApp, type TestApp } from './harness';
@@ -101,6 +102,8 @@ async function fixture() {
   await finding('F', '2201', '2026-02-15T10:00:00-06:00', fourMotor, 'plan', 'gear_case_leaking', 'shop', { unitType: 'four_axle_road' });
   for (const at of ['2026-03-01T08:00:00-06:00', '2026-04-01T08:00:00-05:00']) await inspection('2201', at);
   await inspection('2202', '2026-03-02T08:00:00-06:00');
+  // Rows written straight to the table, like a bulk load: fill the repeat rule's day counts the way the seeds do.
+  await priorRepairs(t.db).refreshAll();
 }
 
 beforeAll(async () => {
@@ -192,6 +195,7 @@ describe('hot spots: repeats', () => {
          from findings where id = $1 returning id`,
       [ids.V],
     );
+    await priorRepairs(t.db).refreshAll();
     try {
       const eng = await t.as('engineer');
       const r = await eng.get(`/api/hot-spots/findings?${RANGE}&label=${encodeURIComponent('Left side, #1 sand box')}`);
@@ -201,6 +205,7 @@ describe('hot spots: repeats', () => {
     } finally {
       await t.pool.query(`delete from findings where id = $1`, [copy.rows[0].id]);
       await t.pool.query(`update findings set repaired_at = null where id = $1`, [ids.V]);
+      await priorRepairs(t.db).refreshAll();
     }
   });
 

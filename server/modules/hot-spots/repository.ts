@@ -1,4 +1,6 @@
+import { sql } from 'drizzle-orm';
 import type pg from 'pg';
+import type { DbOrTx } from '../../db/client';
 import type { CellCount } from '../../../shared/hot-spots/grid';
 import type { MonthCount } from '../../../shared/hot-spots/trend';
 import type { FrontEnd } from '../../../shared/domain/frames';
@@ -87,37 +89,20 @@ const FINDING_FILTERS = `
         select 1 from inspections yi join units yu on yu.id = yi.unit_id
          where yi.id = f.inspection_id and coalesce(yi.yard_id, yu.yard_id) = any($6::uuid[])))`;
 
-/** Selected rows, their candidate precedents and the repeats among them; used by the screen, the row list and the export. */
+/**
+ * Selected rows and whether each is a repeat; used by the screen, the row list and the export.
+ * The repeat rule (same unit, same physical part, same defect type, a repair of a non-voided finding
+ * no later than this one and at most WIN calendar days before it, railroad zone) is one comparison:
+ * the day count is kept on each finding at write time (see `priorRepairs` below); the window is
+ * read here, so a change of the setting takes effect at once.
+ */
 const selected = (extra = '') => `
   sel as materialized (
-    select f.id, f.unit_id, f.label, f.part_label, f.part_kind, f.instance_id, f.defect_type, f.created_at,
-           f.front_along, f.front_left, (f.created_at at time zone $7::text)::date as day
+    select f.id, f.unit_id, f.label, f.part_label, f.part_kind, f.created_at,
+           f.front_along, f.front_left, (f.created_at at time zone $7::text)::date as day,
+           coalesce(f.prior_repair_days <= ${WIN}, false) as rep
       from findings f
      where f.unit_type_key = $1 and ${FINDING_FILTERS} ${extra}
-  ),
-  -- Voided findings are few; a repair recorded on one of them is no precedent.
-  voided as materialized (
-    select unit_id, instance_id, defect_type, repaired_at from findings where state = 'voided' and repaired_at is not null
-  ),
-  -- Repairs that could make a selected finding a repeat: the type's units, repaired from WIN + 2 days
-  -- before the range to its end (two days of margin cover any zone offset); index-only on findings_repeat.
-  prec as (
-    select p.unit_id, p.instance_id, p.defect_type, p.repaired_at, (p.repaired_at at time zone $7::text)::date as rday
-      from findings p
-     where p.unit_id in (select id from units where unit_type_key = $1)
-       and p.repaired_at >= ${T0} - (${WIN} + 2) * interval '1 day' and p.repaired_at < ${T1}
-       and not exists (select 1 from voided v
-                        where v.unit_id = p.unit_id and v.instance_id = p.instance_id
-                          and v.defect_type = p.defect_type and v.repaired_at = p.repaired_at)
-  ),
-  -- The repeat rule: same unit, same physical part, same defect type, a repair no later than the
-  -- finding and at most WIN calendar days (railroad zone) before it. A hash semi-join, one probe per row.
-  reps as materialized (
-    select s.id, s.label, s.unit_id, s.day
-      from sel s
-     where exists (select 1 from prec p
-                    where p.unit_id = s.unit_id and p.instance_id = s.instance_id and p.defect_type = s.defect_type
-                      and p.repaired_at <= s.created_at and s.day - p.rday <= ${WIN})
   )`;
 
 const params = (f: HotSpotFilter, s: Settings) => [
@@ -136,7 +121,7 @@ async function inTx<T>(pool: pg.Pool, run: (c: pg.PoolClient) => Promise<T>): Pr
   try {
     // These statements read many rows and finish in well under a second: compiling them to
     // machine code (JIT) costs more than it saves, and the per-key hashes want more than 4 MB.
-    await c.query(`begin read only; set local jit = off; set local work_mem = '32MB'`);
+    await c.query(`begin read only; set local jit = off; set local work_mem = '128MB'`);
     const out = await run(c);
     await c.query('commit');
     return out;
@@ -157,16 +142,46 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
 
   /** Everything the screen shows, in one statement. `otherTypes`: the unit types the fleet baseline adds. */
   async aggregate(f: HotSpotFilter, cellIn: number, s: Settings, otherTypes: string[]): Promise<Aggregate> {
+    // Index-only passes with no per-row work beyond hashing: the selection once, grouped two ways at
+    // once (by part and unit; by grid cell and month), and every unit type's findings counted by part
+    // kind, one index range per (type, kind). Months are found by searching the month starts (no zone
+    // arithmetic per row); the part's name and kind are group keys, as min() of text copies per row.
+    const REP = `f.prior_repair_days <= ${WIN}`;
     const text = `
-      with
-      ${selected()},
-      lu as (
-        select a.label, a.part_kind, a.part_label, a.unit_id, a.n, coalesce(b.r, 0) as r, a.sa, a.sl
-          from (select label, min(part_kind) as part_kind, min(part_label) as part_label, unit_id, count(*)::int as n,
-                       sum(front_along) as sa, sum(front_left) as sl
-                  from sel group by label, unit_id) a
-          left join (select label, unit_id, count(*)::int as r from reps group by label, unit_id) b
-            on b.label = a.label and b.unit_id = a.unit_id
+      with recursive
+      -- First instant of each month the range touches (railroad zone), and its civil month.
+      mb as (
+        select array_agg(m order by m) as local, array_agg(m at time zone $7::text order by m) as at
+          from generate_series(date_trunc('month', ${T0} at time zone $7::text), ${T1} at time zone $7::text, interval '1 month') m
+      ),
+      g as materialized (
+        select grouping(f.label, f.unit_id, f.part_kind, f.part_label) = 0 as by_part,
+               f.label, f.unit_id, f.part_kind, f.part_label,
+               least(greatest(floor(f.front_along / $9::float8), 0), d.cols - 1)::int as col,
+               least(greatest(floor((f.front_left + d.half) / $9::float8), 0), d.rows - 1)::int as row,
+               width_bucket(f.created_at, mb.at) as b,
+               count(*)::int as n, (count(*) filter (where ${REP}))::int as r, sum(f.front_along) as sa, sum(f.front_left) as sl
+          from findings f, mb,
+               (select ceil(length_in / $9::float8) as cols, ceil(width_in / $9::float8) as rows, width_in / 2 as half from unit_types where key = $1) d
+         where f.unit_type_key = $1 and ${FINDING_FILTERS}
+         group by grouping sets ((f.label, f.unit_id, f.part_kind, f.part_label), (6, 7, 8))
+      ),
+      lu as materialized (
+        select label, unit_id, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, sum(r)::int as r,
+               sum(sa) as sa, sum(sl) as sl
+          from g where by_part group by label, unit_id
+      ),
+      -- The part kinds each type has findings of, found by skipping through the index.
+      kinds(type, kind) as (
+        select ty.key, (select min(f.part_kind) from findings f where f.unit_type_key = ty.key)
+          from unnest(array_prepend($1::text, $10::text[])) as ty(key)
+        union all
+        select k.type, (select min(f.part_kind) from findings f where f.unit_type_key = k.type and f.part_kind > k.kind)
+          from kinds k where k.kind is not null
+      ),
+      fleet as materialized (
+        select k.type, k.kind, (select count(*)::int from findings f where f.unit_type_key = k.type and f.part_kind = k.kind and ${FINDING_FILTERS}) as n
+          from kinds k where k.kind is not null
       )
       select
         (select json_build_object('key', t.key, 'name', t.name, 'lengthIn', t.length_in, 'widthIn', t.width_in)
@@ -179,28 +194,16 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
                     and ($6::uuid[] is null or coalesce(i.yard_id, u.yard_id) = any($6::uuid[]))
                   group by 1) e) as exposure,
         (select coalesce(json_agg(json_build_object('unitTypeKey', k.type, 'partKind', k.kind, 'findings', k.n)), '[]')
-           from (select f.unit_type_key as type, f.part_kind as kind, count(*)::int as n
-                   from findings f
-                  where f.unit_type_key = any($10::text[]) and ${FINDING_FILTERS}
-                  group by 1, 2
-                 union all
-                 select $1, part_kind, count(*)::int from sel group by part_kind) k) as fleet,
+           from fleet k where k.n > 0) as fleet,
         (select coalesce(json_agg(json_build_object('label', x.label, 'partLabel', x.part_label, 'partKind', x.part_kind,
                   'findings', x.n, 'units', x.units, 'repeats', x.r, 'along', x.sa / x.n, 'left', x.sl / x.n) order by x.n desc, x.label), '[]')
            from (select label, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, count(*)::int as units,
                         sum(r)::int as r, sum(sa) as sa, sum(sl) as sl
                    from lu group by label) x) as rows,
         (select coalesce(json_agg(json_build_object('col', c.col, 'row', c.row, 'count', c.n) order by c.col, c.row), '[]')
-           from (select least(greatest(floor(front_along / $9::float8), 0), ceil(t.length_in / $9::float8) - 1)::int as col,
-                        least(greatest(floor((front_left + t.width_in / 2) / $9::float8), 0), ceil(t.width_in / $9::float8) - 1)::int as row,
-                        count(*)::int as n
-                   from sel, unit_types t where t.key = $1 group by 1, 2) c) as cells,
-        (select coalesce(json_agg(json_build_object('month', m.month, 'findings', m.n, 'repeats', m.r) order by m.month), '[]')
-           from (select a.month, a.n, coalesce(b.r, 0) as r
-                   from (select to_char(m0, 'YYYY-MM') as month, n
-                           from (select date_trunc('month', day) as m0, count(*)::int as n from sel group by 1) a0) a
-                   left join (select to_char(m0, 'YYYY-MM') as month, r
-                                from (select date_trunc('month', day) as m0, count(*)::int as r from reps group by 1) b0) b using (month)) m) as months,
+           from (select col, row, sum(n)::int as n from g where not by_part group by 1, 2) c) as cells,
+        (select coalesce(json_agg(json_build_object('month', to_char(mb.local[m.b], 'YYYY-MM'), 'findings', m.n, 'repeats', m.r) order by m.b), '[]')
+           from (select b, sum(n)::int as n, sum(r)::int as r from g where not by_part group by 1) m, mb) as months,
         (select coalesce(json_agg(json_build_object('unitId', w.unit_id, 'roadNumber', un.road_number, 'frontEnd', un.front_end,
                   'repeats', w.r, 'findings', w.n) order by w.r desc, un.road_number), '[]')
            from (select unit_id, sum(r)::int as r, sum(n)::int as n from lu group by unit_id having sum(r) > 0
@@ -214,15 +217,14 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
   async findings(f: HotSpotFilter, s: Settings, label: string | null, limit: number): Promise<{ items: FindingRow[]; total: number; settings: Settings | null }> {
     const text = `
       with
-      ${selected('and ($9::text is null or f.label = $9::text)')},
-      picked as (select s.*, (r.id is not null) as rep from sel s left join reps r on r.id = s.id)
-      select (select count(*)::int from picked) as total, ${CURRENT},
+      ${selected('and ($9::text is null or f.label = $9::text)')}
+      select (select count(*)::int from sel) as total, ${CURRENT},
              (select coalesce(json_agg(x order by x."createdAt" desc, x.id), '[]') from (
                 select p.id, p.unit_id as "unitId", u.road_number as "roadNumber", u.unit_type_key as "unitTypeKey", fd.front_end as "frontEnd",
-                       p.label, p.part_label as "partLabel", p.part_kind as "partKind", p.instance_id as "instanceId",
-                       p.defect_type as "defectType", fd.weight, fd.state, fd.created_at as "createdAt", fd.repaired_at as "repairedAt",
+                       p.label, p.part_label as "partLabel", p.part_kind as "partKind", fd.instance_id as "instanceId",
+                       fd.defect_type as "defectType", fd.weight, fd.state, fd.created_at as "createdAt", fd.repaired_at as "repairedAt",
                        p.rep as repeat, p.front_along as along, p.front_left as "left"
-                  from picked p join findings fd on fd.id = p.id join units u on u.id = p.unit_id
+                  from sel p join findings fd on fd.id = p.id join units u on u.id = p.unit_id
                  order by p.created_at desc, p.id limit $10) x) as items`;
     const r = await inTx(pool, (c) => c.query<{ total: number; settings: Settings | null; items: (Omit<FindingRow, 'createdAt' | 'repairedAt'> & { createdAt: string; repairedAt: string | null })[] }>(text, [...params(f, s), label, limit]));
     const row = r.rows[0];
@@ -230,3 +232,68 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
   },
 });
 export type HotSpotsRepository = ReturnType<typeof hotSpotsRepository>;
+
+/*
+ * findings.prior_repair_days, the one number the repeat rule needs, kept right by every write:
+ * calendar days (railroad zone) from the latest repair of a non-voided finding of the same unit,
+ * physical part and defect type with repaired_at ≤ this finding's created_at, to this finding's
+ * day; null when there is none. A finding is a repeat when it is ≤ the repeat window.
+ */
+const ZONE = `(select time_zone as tz from railroad_settings where id = 1)`;
+/** The number for the findings row `f`, from the rows as they are now. */
+const PRIOR_REPAIR_DAYS = (f: string) => `(
+  select (${f}.created_at at time zone z.tz)::date - (max(p.repaired_at) at time zone z.tz)::date
+    from findings p, ${ZONE} z
+   where p.unit_id = ${f}.unit_id and p.instance_id = ${f}.instance_id and p.defect_type = ${f}.defect_type
+     and p.state <> 'voided' and p.repaired_at <= ${f}.created_at
+   group by z.tz)`;
+
+/**
+ * Every finding at once, in one pass (seeds, and the migration holds the same statement): repairs
+ * and findings of each key in time order, a repair before a finding at the same instant, and the
+ * running latest repair. Writes only rows whose number changes.
+ */
+export const REFRESH_ALL_PRIOR_REPAIR_DAYS = `
+  update findings f
+     set prior_repair_days = (f.created_at at time zone z.tz)::date - (w.last_repair at time zone z.tz)::date
+    from (select id, kind, max(repaired_at) over (partition by unit_id, instance_id, defect_type order by at, kind rows unbounded preceding) as last_repair
+            from (select id, unit_id, instance_id, defect_type, repaired_at as at, 0 as kind, repaired_at
+                    from findings where repaired_at is not null and state <> 'voided'
+                  union all
+                  select id, unit_id, instance_id, defect_type, created_at, 1, null from findings) e) w,
+         ${ZONE} z
+   where w.kind = 1 and w.id = f.id
+     and f.prior_repair_days is distinct from (f.created_at at time zone z.tz)::date - (w.last_repair at time zone z.tz)::date`;
+
+export const priorRepairs = (db: DbOrTx) => {
+  const self = {
+    /**
+     * Writes of one key (unit, physical part, defect type) take turns: a transaction-scoped lock, taken
+     * before any row lock, so a finding added while a precedent is voided or repaired is computed from,
+     * or recomputed after, the other's commit, and two such changes never wait on each other's rows.
+     */
+    async lockKey(findingId: string) {
+      await db.execute(sql`
+        select pg_advisory_xact_lock(4242006, hashtext(unit_id::text || '/' || instance_id || '/' || defect_type)) from findings where id = ${findingId}`);
+    },
+    /** A new finding (walkaround): its own number, in the transaction that inserts it. */
+    async fill(findingId: string) {
+      await self.lockKey(findingId);
+      await db.execute(sql`update findings f set prior_repair_days = ${sql.raw(PRIOR_REPAIR_DAYS('f'))} where f.id = ${findingId}`);
+    },
+    /** A finding voided or repaired: the findings of its key found since may gain or lose it as their precedent. */
+    async refreshAfter(findingId: string) {
+      await self.lockKey(findingId);
+      await db.execute(sql`
+        update findings f set prior_repair_days = ${sql.raw(PRIOR_REPAIR_DAYS('f'))}
+          from findings a
+         where a.id = ${findingId} and f.unit_id = a.unit_id and f.instance_id = a.instance_id and f.defect_type = a.defect_type
+           and f.created_at >= a.created_at`);
+    },
+    /** Every finding (bulk loads; needed again if the railroad's time zone changes). */
+    async refreshAll() {
+      await db.execute(sql.raw(REFRESH_ALL_PRIOR_REPAIR_DAYS));
+    },
+  };
+  return self;
+};

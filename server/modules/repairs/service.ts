@@ -6,6 +6,7 @@ import type { Db } from '../../db/client';
 import { AppError, forbidden, notFound } from '../../http/errors';
 import type { Person } from '../../http/routes';
 import { audit } from '../../lib/audit';
+import { priorRepairs } from '../hot-spots/repository';
 import { repairsRepository } from './repository';
 
 const EVENT_WORDS: Record<string, string> = {
@@ -73,6 +74,10 @@ export function repairsService(db: Db) {
     async act(person: Person, ip: string, id: string, action: FindingAction, input: ActionInput) {
       return db.transaction(async (tx) => {
         const repo = repairsRepository(tx);
+        // A void or a repair changes which later findings of the part are repeats (hot spots): take
+        // that part's turn before any row lock, then recompute them below.
+        const changesRepeats = action === 'void' || action === 'repair';
+        if (changesRepeats) await priorRepairs(tx).lockKey(id);
         const f = await repo.lockFinding(id);
         if (!f) throw notFound('Finding');
         if (f.version !== input.version) {
@@ -103,6 +108,7 @@ export function repairsService(db: Db) {
         }
         if (action === 'void') details = { reason: input.reason };
         await repo.applyState(id, { state: verdict.to, assignedTo, repaired: action === 'repair', voidReason: action === 'void' ? input.reason : undefined });
+        if (changesRepeats) await priorRepairs(tx).refreshAfter(id);
         const eventId = await repo.insertEvent({ findingId: id, kind: TRANSITIONS[action].event, fromState: from, toState: verdict.to, actorId: person.id, details });
         const federalLeft = f.weight === 'federal' ? await repo.openFederalCount(f.unit_id) : null;
         await audit(tx, { actorId: person.id, action: `finding_${action}`, entity: 'finding', entityId: id, ip, details: { from, to: verdict.to, ...details } });
