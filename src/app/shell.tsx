@@ -60,10 +60,11 @@ export function Shell() {
               <span className="text-xs font-normal text-graphite-2">{ROLE_LABELS[me.data.role]}</span>
             </span>
           </NavLink>
-          <button className="btn px-3" onClick={() => setDark((d) => !d)} aria-pressed={dark} title="Night colours">
-            {dark ? 'Day' : 'Night'}
+          <button className="btn px-3 whitespace-nowrap" onClick={() => setDark((d) => !d)} aria-pressed={dark} title="Night colours" aria-label="Night colours">
+            <span aria-hidden="true">{dark ? '☀' : '☾'}</span>
+            <span className="hidden sm:inline" aria-hidden="true">{dark ? 'Day' : 'Night'}</span>
           </button>
-          <button className="btn px-3" onClick={() => logout.mutate(false)}>
+          <button className="btn px-3 whitespace-nowrap" onClick={() => logout.mutate(false)}>
             Sign out
           </button>
         </div>
