@@ -33,6 +33,8 @@ export default defineConfig({
       SMTP_PORT: process.env.E2E_SMTP_PORT ?? '2626',
       PHOTO_DIR: '.tmp/e2e-photos',
       SESSION_SECRET: 'e2e-only-secret-0123456789',
+      // The flows sign in dozens of times from one address; the limit itself is tested in tests/integration/auth.test.ts.
+      LOGIN_RATE_LIMIT: '10000',
     },
   },
 });
