@@ -297,6 +297,8 @@ export const findings = pgTable(
       t.unitTypeKey, t.createdAt, t.state, t.partKind, t.label, t.partLabel, t.unitId,
       t.defectType, t.weight, t.inspectionId, t.frontAlong, t.frontLeft, t.priorRepairDays,
     ),
+    // …and count each unit type's findings by part kind (the fleet baseline) one range per kind.
+    index('findings_hot_spots_kinds').on(t.unitTypeKey, t.partKind, t.createdAt, t.state, t.defectType, t.weight, t.inspectionId),
     uniqueIndex('findings_idem').on(t.createdBy, t.idempotencyKey),
   ],
 );

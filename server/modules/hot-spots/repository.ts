@@ -85,18 +85,24 @@ const FINDING_FILTERS = `
   and f.state <> 'voided'
   and ($4::text[] is null or f.defect_type = any($4::text[]))
   and ($5::text[] is null or f.weight = any($5::text[]))
-  and ($6::uuid[] is null or exists (
-        select 1 from inspections yi join units yu on yu.id = yi.unit_id
-         where yi.id = f.inspection_id and coalesce(yi.yard_id, yu.yard_id) = any($6::uuid[])))`;
+  and ($6::uuid[] is null or f.inspection_id in (select id from yard_inspections))`;
+/**
+ * The inspections made in the chosen yards (the inspection's yard, else the unit's), gathered once
+ * for FINDING_FILTERS to probe; every statement using the filters starts its WITH list with it.
+ */
+const YARD_INSPECTIONS = `
+  yard_inspections as materialized (
+    select yi.id from inspections yi join units yu on yu.id = yi.unit_id where coalesce(yi.yard_id, yu.yard_id) = any($6::uuid[])
+  )`;
 
 /**
- * Selected rows and whether each is a repeat; used by the screen, the row list and the export.
+ * Selected rows and whether each is a repeat; used by the row list and the export.
  * The repeat rule (same unit, same physical part, same defect type, a repair of a non-voided finding
  * no later than this one and at most WIN calendar days before it, railroad zone) is one comparison:
  * the day count is kept on each finding at write time (see `priorRepairs` below); the window is
  * read here, so a change of the setting takes effect at once.
  */
-const selected = (extra = '') => `
+const selected = (extra = '') => `${YARD_INSPECTIONS},
   sel as materialized (
     select f.id, f.unit_id, f.label, f.part_label, f.part_kind, f.created_at,
            f.front_along, f.front_left, (f.created_at at time zone $7::text)::date as day,
@@ -121,7 +127,7 @@ async function inTx<T>(pool: pg.Pool, run: (c: pg.PoolClient) => Promise<T>): Pr
   try {
     // These statements read many rows and finish in well under a second: compiling them to
     // machine code (JIT) costs more than it saves, and the per-key hashes want more than 4 MB.
-    await c.query(`begin read only; set local jit = off; set local work_mem = '128MB'`);
+    await c.query(`begin read only; set local jit = off; set local work_mem = '32MB'`);
     const out = await run(c);
     await c.query('commit');
     return out;
@@ -143,12 +149,12 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
   /** Everything the screen shows, in one statement. `otherTypes`: the unit types the fleet baseline adds. */
   async aggregate(f: HotSpotFilter, cellIn: number, s: Settings, otherTypes: string[]): Promise<Aggregate> {
     // Index-only passes with no per-row work beyond hashing: the selection once, grouped two ways at
-    // once (by part and unit; by grid cell and month), and every unit type's findings counted by part
-    // kind, one index range per (type, kind). Months are found by searching the month starts (no zone
-    // arithmetic per row); the part's name and kind are group keys, as min() of text copies per row.
+    // once (by part and unit; by grid cell and month), and the other unit types' findings counted by
+    // part kind, one index range per (type, kind). Months are found by searching the month starts (no
+    // zone arithmetic per row); the part's name and kind are group keys, as min() of text copies per row.
     const REP = `f.prior_repair_days <= ${WIN}`;
     const text = `
-      with recursive
+      with recursive ${YARD_INSPECTIONS},
       -- First instant of each month the range touches (railroad zone), and its civil month.
       mb as (
         select array_agg(m order by m) as local, array_agg(m at time zone $7::text order by m) as at
@@ -171,10 +177,10 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
                sum(sa) as sa, sum(sl) as sl
           from g where by_part group by label, unit_id
       ),
-      -- The part kinds each type has findings of, found by skipping through the index.
+      -- The part kinds each other type has findings of, found by skipping through the index.
       kinds(type, kind) as (
         select ty.key, (select min(f.part_kind) from findings f where f.unit_type_key = ty.key)
-          from unnest(array_prepend($1::text, $10::text[])) as ty(key)
+          from unnest($10::text[]) as ty(key)
         union all
         select k.type, (select min(f.part_kind) from findings f where f.unit_type_key = k.type and f.part_kind > k.kind)
           from kinds k where k.kind is not null
@@ -194,7 +200,9 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
                     and ($6::uuid[] is null or coalesce(i.yard_id, u.yard_id) = any($6::uuid[]))
                   group by 1) e) as exposure,
         (select coalesce(json_agg(json_build_object('unitTypeKey', k.type, 'partKind', k.kind, 'findings', k.n)), '[]')
-           from fleet k where k.n > 0) as fleet,
+           from (select type, kind, n from fleet where n > 0
+                 union all
+                 select $1, part_kind, sum(n)::int from g where by_part group by part_kind) k) as fleet,
         (select coalesce(json_agg(json_build_object('label', x.label, 'partLabel', x.part_label, 'partKind', x.part_kind,
                   'findings', x.n, 'units', x.units, 'repeats', x.r, 'along', x.sa / x.n, 'left', x.sl / x.n) order by x.n desc, x.label), '[]')
            from (select label, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, count(*)::int as units,

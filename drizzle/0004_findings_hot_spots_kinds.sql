@@ -1,0 +1,1 @@
+CREATE INDEX "findings_hot_spots_kinds" ON "findings" USING btree ("unit_type_key","part_kind","created_at","state","defect_type","weight","inspection_id");
