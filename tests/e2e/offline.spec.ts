@@ -122,9 +122,11 @@ test('offline: three findings (one with a photo) wait on the device, arrive once
   await expect(page.getByText(/^No connection\. Findings you pin are kept on this device/)).toBeVisible();
   await pinPilot(page, '1.75');
   await expect(waiting).toContainText('Waiting to send: 1 finding');
-  // Reloaded offline, the shell comes from the service worker: our own script runs and says the server is out of reach.
+  // Reloaded offline, the shell comes from the service worker and opens as the last signed-in person,
+  // with the finding still waiting on the device.
   await page.reload();
-  await expect(page.getByRole('alert').filter({ hasText: 'Hoodline cannot be reached' })).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Sign out' })).toBeVisible();
+  await expect(waiting).toContainText('Waiting to send: 1 finding');
 
   // Meanwhile the same inspector signs the record from another device.
   const other = await browser.newContext();

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { lazy, Suspense, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import type { HotSpotsParams } from '../../../shared/api/hot-spots';
 import { formatCount, formatRate } from '../../../shared/hot-spots/rates';
@@ -47,8 +47,13 @@ export default function HotSpotsScreen() {
   const isWide = useWide();
   const [note, setNote] = useState<string | null>(null);
 
-  const update = (patch: Partial<HotSpotsParams>, row: string | null = null) => {
-    const next = new URLSearchParams(toQueryString({ ...filters, ...patch }));
+  // The filters as last asked for, even before the address has re-rendered, so two quick taps both count.
+  const latest = useRef({ search: '', filters });
+  if (latest.current.search !== search.toString()) latest.current = { search: search.toString(), filters };
+  const update = (patch: Partial<HotSpotsParams> | ((f: HotSpotsParams) => Partial<HotSpotsParams>), row: string | null = null) => {
+    const merged = { ...latest.current.filters, ...(typeof patch === 'function' ? patch(latest.current.filters) : patch) };
+    latest.current = { ...latest.current, filters: merged };
+    const next = new URLSearchParams(toQueryString(merged));
     if (row) next.set('row', row);
     setSearch(next, { replace: true });
   };

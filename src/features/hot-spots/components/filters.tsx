@@ -7,7 +7,8 @@ import { WEIGHT_WORD, WeightGlyph } from './weight-glyph';
 
 interface Props {
   filters: HotSpotsParams;
-  onChange(patch: Partial<HotSpotsParams>): void;
+  /** A patch, or a function of the latest filters (so two quick taps both count). */
+  onChange(patch: Partial<HotSpotsParams> | ((latest: HotSpotsParams) => Partial<HotSpotsParams>)): void;
   unitTypes: UnitTypeItem[];
   yards: { id: string; code: string; name: string }[];
   /** Part kinds drawn on this unit type, to offer only their defect types. */
@@ -44,7 +45,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
         <div className="flex flex-wrap gap-2">
           {FINDING_WEIGHTS.map((w: FindingWeight) => (
             <label key={w} className={`btn px-3 ${filters.weights.includes(w) ? 'border-accent bg-accent-soft' : ''}`}>
-              <input type="checkbox" className="sr-only" checked={filters.weights.includes(w)} onChange={() => onChange({ weights: toggle(filters.weights, w) })} />
+              <input type="checkbox" className="sr-only" checked={filters.weights.includes(w)} onChange={() => onChange((f) => ({ weights: toggle(f.weights, w) }))} />
               <WeightGlyph weight={w} />
               {WEIGHT_WORD[w]}
             </label>
@@ -57,7 +58,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
         <div className="flex flex-wrap gap-2">
           {yards.map((y) => (
             <label key={y.id} className={`btn px-3 ${filters.yards.includes(y.id) ? 'border-accent bg-accent-soft' : ''}`}>
-              <input type="checkbox" className="sr-only" checked={filters.yards.includes(y.id)} onChange={() => onChange({ yards: toggle(filters.yards, y.id) })} />
+              <input type="checkbox" className="sr-only" checked={filters.yards.includes(y.id)} onChange={() => onChange((f) => ({ yards: toggle(f.yards, y.id) }))} />
               {y.name}
             </label>
           ))}
@@ -79,7 +80,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
               <legend className="font-bold capitalize">{kindLabel(kind)}</legend>
               {types.map((d) => (
                 <label key={d.key} className="flex min-h-12 items-center gap-2 text-base">
-                  <input type="checkbox" className="size-5" checked={filters.defectTypes.includes(d.key)} onChange={() => onChange({ defectTypes: toggle(filters.defectTypes, d.key) })} />
+                  <input type="checkbox" className="size-5" checked={filters.defectTypes.includes(d.key)} onChange={() => onChange((f) => ({ defectTypes: toggle(f.defectTypes, d.key) }))} />
                   <WeightGlyph weight={d.weight} size={14} />
                   {d.label}
                 </label>
