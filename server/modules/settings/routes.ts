@@ -6,6 +6,7 @@ import { auditLog, people, railroadSettings, yards } from '../../db/schema';
 import { AppError } from '../../http/errors';
 import { route, type RouteDef } from '../../http/routes';
 import { audit } from '../../lib/audit';
+import { priorRepairs } from '../hot-spots/repository';
 import type { Deps } from '../../deps';
 
 const settingsCols = {
@@ -47,7 +48,10 @@ export function settingsRoutes({ db }: Deps): RouteDef[] {
       body: SettingsBody,
       handler: async ({ body, person, ip }) => {
         return db.transaction(async (tx) => {
+          const [before] = await tx.select({ timeZone: railroadSettings.timeZone }).from(railroadSettings).where(eq(railroadSettings.id, 1));
           const [s] = await tx.update(railroadSettings).set({ ...body, updatedAt: new Date() }).where(eq(railroadSettings.id, 1)).returning(settingsCols);
+          // Repeat day counts are calendar days in the railroad's zone: recount them when the zone moves.
+          if (body.timeZone && before && body.timeZone !== before.timeZone) await priorRepairs(tx).refreshAll();
           await audit(tx, { actorId: person.id, action: 'settings_updated', entity: 'settings', ip, details: body });
           return { body: s };
         });
