@@ -28,7 +28,7 @@ async function main() {
   if (!fs.existsSync('dist/index.html')) spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
 
   // The production server: migrates and seeds the demo railroad (with its history) on start.
-  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const server = spawn(process.execPath, [...(process.env.BENCH_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE}`] : []), '--import', 'tsx', 'server/index.ts'], {
     env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: url, PORT: String(PORT), SERVE_DIST: '1', SEED_DEMO: '1', FAKE_SMTP: '0', WORKERS: '0', WRITE_RATE_LIMIT: '1000000', SESSION_SECRET: 'bench-only-secret-0123456789' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
@@ -42,30 +42,44 @@ async function main() {
     const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'inspector@demo.example', password: 'hoodline-demo' }) });
     const cookie = login.headers.getSetCookie()[0].split(';')[0];
     const h = { cookie, 'content-type': 'application/json' };
-    const units = (await (await fetch(`${base}/api/units`, { headers: h })).json()).items;
-    // Several inspections at once, as a yard's inspectors would have, so writes do not all queue on one record.
-    const sixAxle = units.filter((u: { unitTypeKey: string }) => u.unitTypeKey === 'six_axle_road');
-    const unit = sixAxle[0];
-    const inspections: { id: string }[] = [];
-    for (const u of sixAxle) inspections.push(await (await fetch(`${base}/api/inspections`, { method: 'POST', headers: h, body: JSON.stringify({ unitId: u.id, kind: 'periodic', frontEndSeen: u.frontEnd }) })).json());
-    const insp = inspections[0];
+    // A yard with 50 inspectors at once, each walking their own unit: the bench adds 50 units of the six-axle
+    // type to its own database (half with the F at each end) so that writes do not queue on a few records.
+    const db = new pg.Client({ connectionString: url });
+    await db.connect();
+    await db.query(`insert into units (road_number, unit_type_key, front_end, yard_id, last_periodic_on, last_annual_on)
+      select 'LOAD ' || g, u.unit_type_key, case when g % 2 = 0 then 'short_hood' else 'long_hood' end, u.yard_id, u.last_periodic_on, u.last_annual_on
+        from generate_series(1, ${CONNECTIONS}) g, (select * from units where unit_type_key = 'six_axle_road' order by road_number limit 1) u`);
+    await db.end();
+    const units = (await (await fetch(`${base}/api/units`, { headers: h })).json()).items as { id: string; roadNumber: string; frontEnd: string }[];
+    const walked = units.filter((u) => u.roadNumber.startsWith('LOAD '));
+    const inspections: { id: string; unitId: string }[] = [];
+    for (const u of walked) {
+      const r = await fetch(`${base}/api/inspections`, { method: 'POST', headers: h, body: JSON.stringify({ unitId: u.id, kind: 'periodic', frontEndSeen: u.frontEnd }) });
+      if (!r.ok) throw new Error(`could not start an inspection of ${u.roadNumber}: ${r.status} ${await r.text()}`);
+      inspections.push({ ...(await r.json()), unitId: u.id });
+    }
+    // Each pass through the mix is one inspector's round: their unit's list, drawing layout, the queue, their
+    // inspection and one finding on it. Passes are handed out in turn, so the 50 connections spread over the 50 inspections.
+    let pass = 0;
     let n = 0;
+    type Ctx = { i?: number };
+    const mine = (c: Ctx) => inspections[c.i ?? 0];
     const result = await autocannon({
       url: base,
       connections: CONNECTIONS,
       duration: DURATION,
       headers: h,
       requests: [
-        { method: 'GET', path: '/api/units' },
-        { method: 'GET', path: `/api/units/${unit.id}/layout` },
+        { method: 'GET', path: '/api/units', setupRequest: (req, c: Ctx) => ((c.i = pass++ % inspections.length), req) },
+        { method: 'GET', path: '/', setupRequest: (req, c: Ctx) => ({ ...req, path: `/api/units/${mine(c).unitId}/layout` }) },
         { method: 'GET', path: `/api/repairs` },
-        { method: 'GET', path: `/api/inspections/${insp.id}` },
+        { method: 'GET', path: '/', setupRequest: (req, c: Ctx) => ({ ...req, path: `/api/inspections/${mine(c).id}` }) },
         {
           method: 'POST',
-          path: `/api/inspections/${insp.id}/findings`,
-          setupRequest: (req) => {
+          path: '/',
+          setupRequest: (req, c: Ctx) => {
             n++;
-            return { ...req, path: `/api/inspections/${inspections[n % inspections.length].id}/findings`, headers: { ...h, 'idempotency-key': `bench-${process.pid}-${n}` }, body: JSON.stringify({ partId: 'pl-traction_motor_2', view: 'plan', x: 170 + (n % 6), y: (n % 30) - 15, defectType: 'traction_motor_other', note: `load ${n}` }) };
+            return { ...req, path: `/api/inspections/${mine(c).id}/findings`, headers: { ...h, 'idempotency-key': `bench-${process.pid}-${n}` }, body: JSON.stringify({ partId: 'pl-traction_motor_2', view: 'plan', x: 170 + (n % 6), y: (n % 30) - 15, defectType: 'traction_motor_other', note: `load ${n}` }) };
           },
         },
       ],

@@ -23,7 +23,6 @@ import { repairsRoutes } from './modules/repairs/routes';
 import { walkaroundRoutes } from './modules/walkaround/routes';
 import { authRoutes } from './modules/auth/routes';
 import { toPerson } from './modules/auth/service';
-import { authRepository } from './modules/auth/repository';
 import { peopleRoutes } from './modules/people/routes';
 import { settingsRoutes } from './modules/settings/routes';
 import { unitsRoutes } from './modules/units/routes';
@@ -56,6 +55,7 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
   const stoppers: (() => Promise<void> | void)[] = [];
   const app = express();
   app.disable('x-powered-by');
+
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
   app.set('query parser', 'simple');
 
@@ -101,13 +101,12 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
 
   // Load the signed-in person on every API request; a deactivated person or a session issued before
   // "sign out everywhere" counts as signed out.
-  const authRepo = authRepository(db);
   app.use('/api', async (req, _res, next) => {
     req.person = null;
     const id = req.session?.personId;
     if (!id) return next();
     try {
-      const p = await authRepo.byId(id);
+      const p = await deps.services.signedIn.get(id);
       const issuedAt = req.session.issuedAt ?? 0;
       if (p && p.active && !(p.sessionsValidAfter && p.sessionsValidAfter.getTime() > issuedAt)) {
         req.person = toPerson(p);

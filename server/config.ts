@@ -34,6 +34,8 @@ const EnvSchema = z.object({
   OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(3000),
   SERVE_DIST: bool.default(false),
   DIAGRAMS_DIR: z.string().default('diagrams'),
+  /** How long a signed-in person's row is reused between requests (other processes see a role change this late). */
+  PERSON_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(2000),
   /** Run background workers (outbox, digest) in this process. */
   WORKERS: bool.default(true),
 });

@@ -4,6 +4,7 @@ import type { Drawing } from '../shared/drawings/types';
 import type { Config } from './config';
 import type { Db } from './db/client';
 import type { Mailer, ReceivedMail } from './mail/mailer';
+import { personCache } from './modules/auth/person-cache';
 import { authService } from './modules/auth/service';
 import { dueService } from './modules/due/service';
 import { outboxService } from './modules/outbox/service';
@@ -19,9 +20,11 @@ export function buildStorage(config: Config): PhotoStorage {
 
 /** Everything a module needs, built once per app; tests build it against their own database. */
 export function buildServices(db: Db, config: Config, drawings: ReadonlyMap<string, Drawing>, mailer: Mailer) {
+  const signedIn = personCache(db, config.PERSON_CACHE_MS);
   return {
-    auth: authService(db, config),
-    people: peopleService(db),
+    signedIn,
+    auth: authService(db, config, signedIn),
+    people: peopleService(db, signedIn),
     units: unitsService(db, drawings),
     outbox: outboxService(db, mailer),
     due: dueService(db),

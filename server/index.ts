@@ -49,6 +49,9 @@ export async function startServer(config: Config, opts: { seed: boolean; log?: (
       server.closeIdleConnections();
       await Promise.race([closed, new Promise((r) => setTimeout(r, 5000))]);
       server.closeAllConnections();
+      // A client that hung up leaves its handler running: let the queries still out finish before the pool goes.
+      const busy = () => pool.waitingCount > 0 || pool.totalCount > pool.idleCount;
+      for (let waited = 0; busy() && waited < 5000; waited += 20) await new Promise((r) => setTimeout(r, 20));
       await handle.close();
       await pool.end();
     },

@@ -1,3 +1,4 @@
+import type { PersonCache } from './person-cache';
 import bcrypt from 'bcryptjs';
 import type { Request } from 'express';
 import type { Config } from '../../config';
@@ -30,7 +31,7 @@ export const toPerson = (p: { id: string; email: string; name: string; role: str
   yardId: p.yardId,
 });
 
-export function authService(db: Db, config: Config) {
+export function authService(db: Db, config: Config, signedIn?: PersonCache) {
   const repo = authRepository(db);
   return {
     async login(req: Request, email: string, password: string): Promise<Person> {
@@ -62,6 +63,7 @@ export function authService(db: Db, config: Config) {
     },
     async logoutEverywhere(req: Request, person: Person): Promise<void> {
       await repo.endAllSessions(person.id);
+      signedIn?.forget(person.id);
       await regenerate(req);
       await save(req);
       await audit(db, { actorId: person.id, action: 'logout_everywhere', entity: 'person', entityId: person.id, ip: req.ip });
@@ -75,6 +77,7 @@ export function authService(db: Db, config: Config) {
         throw new AppError('validation', 'The new password must not contain your e-mail name', { newPassword: 'Contains your e-mail name' });
       }
       await repo.setPassword(person.id, await bcrypt.hash(next, BCRYPT_COST));
+      signedIn?.forget(person.id);
       await audit(db, { actorId: person.id, action: 'password_changed', entity: 'person', entityId: person.id, ip: req.ip });
     },
     async verifyPassword(personId: string, password: string): Promise<boolean> {

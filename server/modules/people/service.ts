@@ -1,3 +1,4 @@
+import type { PersonCache } from '../auth/person-cache';
 import bcrypt from 'bcryptjs';
 import type { Db } from '../../db/client';
 import { AppError, notFound } from '../../http/errors';
@@ -8,7 +9,7 @@ import { BCRYPT_COST } from '../auth/service';
 import { authRepository } from '../auth/repository';
 import { peopleRepository } from './repository';
 
-export function peopleService(db: Db) {
+export function peopleService(db: Db, signedIn?: PersonCache) {
   return {
     list: () => peopleRepository(db).list(),
     async create(actor: Person, ip: string, body: CreatePersonBody) {
@@ -41,6 +42,7 @@ export function peopleService(db: Db) {
         await audit(tx, { actorId: actor.id, action: 'person_updated', entity: 'person', entityId: id, ip, details: patch });
         return updated;
       });
+      signedIn?.forget(id);
       // A deactivated person loses every session at once.
       if (patch.active === false) await authRepository(db).endAllSessions(id);
       return row;

@@ -1,6 +1,7 @@
 import { IdParams } from '../../../shared/api/common';
 import { UnitTypeParams, UnitsQuery, UpdateUnitBody } from '../../../shared/api/units';
 import { CAN } from '../../../shared/domain/roles';
+import { sendFrozen } from '../../http/frozen-json';
 import { route, type RouteDef } from '../../http/routes';
 import type { Deps } from '../../deps';
 
@@ -27,7 +28,7 @@ export function unitsRoutes(deps: Deps): RouteDef[] {
       access: READ_TYPES,
       summary: 'One unit type: its views and parts with geometry',
       params: UnitTypeParams,
-      handler: ({ params }) => ({ body: svc.drawing(params.key) }),
+      handler: ({ params, req, res }) => sendFrozen(req, res, svc.drawingJson(params.key)),
     }),
     route({
       method: 'get',
@@ -35,7 +36,7 @@ export function unitsRoutes(deps: Deps): RouteDef[] {
       access: READ_TYPES,
       summary: 'Labels of every part of a unit type under a given front end',
       params: UnitTypeParams.extend({ frontEnd: UpdateUnitBody.shape.frontEnd.unwrap() }),
-      handler: ({ params }) => ({ body: svc.layoutFor(svc.drawing(params.key).key, params.frontEnd) }),
+      handler: ({ params, req, res }) => sendFrozen(req, res, svc.layoutJson(svc.drawing(params.key).key, params.frontEnd)),
     }),
     route({
       method: 'get',
@@ -59,9 +60,9 @@ export function unitsRoutes(deps: Deps): RouteDef[] {
       access: CAN.readRecords,
       summary: "Every part of the unit with the labels its front end gives it",
       params: IdParams,
-      handler: async ({ params }) => {
+      handler: async ({ params, req, res }) => {
         const u = await svc.get(params.id);
-        return { body: svc.layoutFor(u.unitTypeKey, u.frontEnd) };
+        sendFrozen(req, res, svc.layoutJson(u.unitTypeKey, u.frontEnd));
       },
     }),
     route({

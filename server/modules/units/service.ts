@@ -4,6 +4,7 @@ import type { FrontEnd } from '../../../shared/domain/frames';
 import { unitLayout, type UnitLayout } from '../../../shared/layout/unit-layout';
 import type { UpdateUnitBody } from '../../../shared/api/units';
 import { AppError, notFound } from '../../http/errors';
+import { frozenJson, type FrozenJson } from '../../http/frozen-json';
 import type { Person } from '../../http/routes';
 import { audit } from '../../lib/audit';
 import { unitsRepository, type UnitFilter } from './repository';
@@ -11,6 +12,8 @@ import { unitsRepository, type UnitFilter } from './repository';
 export function unitsService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
   // Layouts depend only on (unit type, front end): derive each once.
   const layouts = new Map<string, UnitLayout>();
+  const layoutJsons = new Map<string, FrozenJson>();
+  const drawingJsons = new Map<string, FrozenJson>();
   const layoutFor = (typeKey: string, frontEnd: FrontEnd): UnitLayout => {
     const k = `${typeKey}:${frontEnd}`;
     let l = layouts.get(k);
@@ -24,6 +27,22 @@ export function unitsService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
   };
   return {
     layoutFor,
+    /** The layout as sent: serialised and tagged once, since it never changes while the process runs. */
+    layoutJson(typeKey: string, frontEnd: FrontEnd): FrozenJson {
+      const k = `${typeKey}:${frontEnd}`;
+      let j = layoutJsons.get(k);
+      if (!j) layoutJsons.set(k, (j = frozenJson(layoutFor(typeKey, frontEnd))));
+      return j;
+    },
+    drawingJson(typeKey: string): FrozenJson {
+      let j = drawingJsons.get(typeKey);
+      if (!j) {
+        const d = drawings.get(typeKey);
+        if (!d) throw notFound('Unit type');
+        drawingJsons.set(typeKey, (j = frozenJson(d)));
+      }
+      return j;
+    },
     drawing(typeKey: string): Drawing {
       const d = drawings.get(typeKey);
       if (!d) throw notFound('Unit type');

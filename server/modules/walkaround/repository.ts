@@ -59,10 +59,6 @@ export const walkaroundRepository = (db: DbOrTx) => ({
     const r = await db.select().from(inspections).where(eq(inspections.id, id)).limit(1);
     return r[0] ?? null;
   },
-  async inspectionForUpdate(id: string) {
-    const r = await db.execute<{ id: string }>(sql`select id from inspections where id = ${id} for update`);
-    return r.rows.length > 0;
-  },
   async inspectionByKey(inspectorId: string, key: string) {
     const r = await db
       .select()
@@ -83,8 +79,10 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       .returning();
     return r[0] ?? null;
   },
-  async touchInspection(id: string) {
-    await db.update(inspections).set({ version: sql`${inspections.version} + 1` }).where(eq(inspections.id, id));
+  /** Locks the inspection for this transaction and bumps its version in one statement; its status, or null. */
+  async lockAndTouch(id: string) {
+    const r = await db.execute<{ status: string }>(sql`update inspections set version = version + 1 where id = ${id} returning status`);
+    return r.rows[0]?.status ?? null;
   },
   async listInspections(f: { inspectorId?: string; unitId?: string; status?: string; limit: number }) {
     return db
@@ -160,6 +158,13 @@ export const walkaroundRepository = (db: DbOrTx) => ({
   },
   async insertEvent(v: typeof findingEvents.$inferInsert) {
     await db.insert(findingEvents).values(v);
+  },
+  /** The photos of every finding of an inspection, in one query beside the findings'. */
+  async photosOfInspection(inspectionId: string) {
+    const r = await db.execute<{ id: string; findingId: string }>(
+      sql`select p.id, p.finding_id as "findingId" from photos p join findings f on f.id = p.finding_id where f.inspection_id = ${inspectionId} order by p.created_at`,
+    );
+    return r.rows;
   },
   async photosOf(findingIds: string[]) {
     if (!findingIds.length) return [];

@@ -113,15 +113,17 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
 
   async function view(insp: InspectionRow): Promise<InspectionView> {
     const repo = walkaroundRepository(db);
-    const [unit, items, fs, corrections, settings, inspectorName] = await Promise.all([
+    const [unit, items, fs, photoRows, corrections, settings, inspectorName] = await Promise.all([
       repo.unit(insp.unitId),
       repo.items(insp.id),
       repo.findingsOfInspection(insp.id),
+      repo.photosOfInspection(insp.id),
       repo.corrections(insp.id),
       repo.settings(),
       repo.personName(insp.inspectorId),
     ]);
-    const photoRows = await repo.photosOf(fs.map((f) => f.id));
+    const photosBy = new Map<string, string[]>();
+    for (const p of photoRows) photosBy.set(p.findingId, [...(photosBy.get(p.findingId) ?? []), p.id]);
     const routine = insp.routineSnapshot as Routine;
     const frontEnd = insp.frontEndSeen as FrontEnd;
     const areas = routine.areas.map((a) => ({ ...a, label: areaLabel(a.key, frontEnd, a.label) }));
@@ -143,7 +145,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       routine: { ...routine, areas },
       items: effectiveItems,
       coverage: coverageOf(routine.areas, effectiveItems),
-      findings: fs.map((f) => toFindingView(f, photoRows.filter((p) => p.findingId === f.id).map((p) => p.id))),
+      findings: fs.map((f) => toFindingView(f, photosBy.get(f.id) ?? [])),
       corrections: corrections.map((c) => ({ id: c.id, note: c.note ?? '', signedAt: c.signedAt?.toISOString() ?? '', by: c.by })),
       correctsId: insp.correctsId,
       railroad: { name: settings?.name ?? '', reportingMark: settings?.reportingMark ?? '', timeZone: settings?.timeZone ?? 'UTC' },
@@ -231,9 +233,8 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
     try {
       const row = await db.transaction(async (tx) => {
         const r = walkaroundRepository(tx);
-        await r.inspectionForUpdate(insp.id);
-        const fresh = await r.inspection(insp.id);
-        if (fresh!.status !== 'in_progress') throw new AppError('conflict', 'This record was signed meanwhile; the finding was not added to it');
+        // One statement locks the record, bumps its version and says whether it is still open.
+        if ((await r.lockAndTouch(insp.id)) !== 'in_progress') throw new AppError('conflict', 'This record was signed meanwhile; the finding was not added to it');
         const f = await r.insertFinding({
           inspectionId: insp.id,
           unitId: unit.id,
@@ -268,7 +269,6 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
         await priorRepairs(tx).fill(f.id);
         await r.insertEvent({ findingId: f.id, kind: 'created', toState: 'open', actorId: person.id, details: { label, weight } });
         await r.markFindingItem(insp.id, part.instanceId);
-        await r.touchInspection(insp.id);
         if (weight === 'federal') {
           const wasOpen = await r.openTag(unit.id);
           await r.markNonComplying(unit.id, person.id, unit.yardName ?? '');
@@ -404,16 +404,13 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       if (body.state === 'not_applicable' && !body.reason) throw new AppError('validation', 'Say why the part does not apply', { reason: 'A reason is required' });
       await db.transaction(async (tx) => {
         const r = walkaroundRepository(tx);
-        await r.inspectionForUpdate(id);
-        const current = await r.inspection(id);
-        assertOpen(current!);
+        if ((await r.lockAndTouch(id)) !== 'in_progress') assertOpen({ ...insp, status: 'signed' });
         const live = (await r.findingsOfInspection(id)).filter((f) => f.state !== 'voided');
         // A part with a live finding stays "finding": passing it would hide the defect.
         const rows = body.instanceIds
           .filter((i) => !live.some((f) => f.instanceId === i))
           .map((instanceId) => ({ instanceId, state: body.state, reason: body.reason ?? null }));
         await r.setItems(id, rows);
-        await r.touchInspection(id);
         await audit(tx, { actorId: person.id, action: 'coverage_set', entity: 'inspection', entityId: id, ip, details: { state: body.state, count: rows.length } });
       });
       return view(await load(id));
