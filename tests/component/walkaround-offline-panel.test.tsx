@@ -1,5 +1,5 @@
 import { act, fireEvent, render, screen, within } from '@testing-library/react';
-import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
 // jsdom has no IndexedDB: idb-keyval is swapped for a Map with the same get/set contract.
 const mem = new Map<string, unknown>();
@@ -9,7 +9,8 @@ vi.mock('idb-keyval', () => ({
 }));
 
 const { OfflinePanel } = await import('../../src/features/walkaround/offline/offline-panel');
-const { offlineQueue } = await import('../../src/features/walkaround/offline/sync');
+const { offlineQueue, queueFinding, startOfflineSync } = await import('../../src/features/walkaround/offline/sync');
+const { QueryClient } = await import('@tanstack/react-query');
 
 const finding = (n: number) => ({
   inspectionId: 'insp-1',
@@ -36,6 +37,7 @@ describe('offline panel', () => {
           throw { status: 409, code: 'conflict', message: 'This record was signed meanwhile; add a correction' };
         },
         uploadPhoto: async () => ({}),
+        postCoverage: async () => ({}),
       }),
     );
     expect(screen.queryByTestId('offline-waiting')).toBeNull();
@@ -56,5 +58,93 @@ describe('offline panel', () => {
     await act(async () => {});
     expect(screen.queryByRole('alert')).toBeNull();
     expect((mem.values().next().value as { failed: unknown[] }).failed).toHaveLength(0);
+  });
+
+  it('lists coverage marks with the findings, in order, and shows a refused mark with the reason in plain words', async () => {
+    render(<OfflinePanel />);
+    await act(() => offlineQueue.enqueue(finding(2)));
+    await act(() =>
+      offlineQueue.enqueueMark({ key: 'm-1', inspectionId: 'insp-1', body: { instanceIds: ['coupler_sh'], state: 'not_applicable', reason: 'Coupler removed for repair' }, preview: { parts: ['Front coupler'], area: null } }),
+    );
+    await act(() =>
+      offlineQueue.enqueueMark({ key: 'm-2', inspectionId: 'insp-1', body: { instanceIds: ['a', 'b', 'c', 'd'], state: 'passed' }, preview: { parts: ['A', 'B', 'C', 'D'], area: 'Front end (short hood)' } }),
+    );
+    const waiting = screen.getByTestId('offline-waiting');
+    expect(within(waiting).getByRole('heading').textContent).toBe('Waiting to send: 1 finding and 2 coverage marks');
+    expect([...waiting.querySelectorAll('li')].map((l) => l.textContent)).toEqual([
+      'Front pilot: Pilot height above rail out of limit (1 photo)',
+      'Not applicable: Front coupler (Coupler removed for repair)',
+      'Passed: 4 parts of Front end (short hood)',
+    ]);
+
+    const signed = { status: 409, code: 'conflict', message: 'This record is signed and can no longer change; add a correction instead' };
+    await act(() =>
+      offlineQueue.flush({
+        postFinding: async () => ({ id: 'f-1' }),
+        uploadPhoto: async () => ({}),
+        postCoverage: async () => {
+          throw signed;
+        },
+      }),
+    );
+    const failed = screen.getByTestId('offline-failed');
+    const rows = within(failed).getAllByTestId('failed-entry');
+    expect(rows.map((r) => r.dataset.kind)).toEqual(['coverage', 'coverage']);
+    expect(rows[0]).toHaveTextContent('Not applicable: Front coupler (Coupler removed for repair)');
+    expect(rows[0]).toHaveTextContent('This mark is not on the record: This record is signed and can no longer change; add a correction instead');
+    expect(rows[0]).toHaveTextContent('Mark it again on the walk if the record is still open, or add it to a correction.');
+    for (const r of rows) await act(async () => fireEvent.click(within(r).getByRole('button', { name: 'Dismiss' })));
+    await act(async () => {});
+    expect(screen.queryByTestId('offline-failed')).toBeNull();
+  });
+});
+
+describe('a finding refused because its reading is within the limit', () => {
+  const posts: { body: Record<string, unknown>; key: string | null }[] = [];
+  let stop = () => {};
+  let qc = new QueryClient();
+  beforeEach(() => {
+    mem.clear();
+    posts.length = 0;
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
+        const body = JSON.parse(String(init.body ?? '{}'));
+        posts.push({ body, key: new Headers(init.headers).get('Idempotency-Key') });
+        if (!body.keepAsNote)
+          return new Response(JSON.stringify({ error: { code: 'check_passed', message: 'The reading is within the limit (3 in minimum, 6 in maximum above the top of rail, 49 CFR 229.123(a)). Keep it as a note, or drop it.' } }), { status: 409 });
+        return new Response(JSON.stringify({ id: 'f-9' }), { status: 201 });
+      }),
+    );
+    qc = new QueryClient();
+    stop = startOfflineSync(qc);
+  });
+  afterEach(() => {
+    stop();
+    vi.unstubAllGlobals();
+  });
+
+  it('asks the question when the connection returns: kept as a note, it is sent again with its own key', async () => {
+    render(<OfflinePanel />);
+    // A 4 in pilot reading, queued while the server could not be asked (49 CFR 229.123(a): 3 in to 6 in passes).
+    await act(() => queueFinding(qc, { ...finding(3), photos: [], body: { ...finding(3).body, measurement: { value: 4, unit: 'in' as const } } }));
+    const failed = await screen.findByTestId('offline-failed');
+    expect(failed).toHaveTextContent('The reading is within the limit (3 in minimum, 6 in maximum above the top of rail, 49 CFR 229.123(a)). Keep it as a note, or drop it.');
+    expect(within(failed).queryByRole('button', { name: 'Copy the note' })).toBeNull();
+    await act(async () => fireEvent.click(within(failed).getByRole('button', { name: 'Keep as a note' })));
+    await vi.waitFor(() => expect(posts).toHaveLength(2));
+    await vi.waitFor(() => expect(screen.queryByTestId('offline-failed')).toBeNull());
+    expect(posts[1]).toEqual({ body: expect.objectContaining({ keepAsNote: true, idempotencyKey: 'k-3' }), key: 'k-3' });
+    expect(posts[0].body.keepAsNote).toBeUndefined();
+    await vi.waitFor(() => expect(offlineQueue.snapshot().pending).toEqual([]));
+  });
+
+  it('or drops it', async () => {
+    render(<OfflinePanel />);
+    await act(() => queueFinding(qc, { ...finding(4), photos: [] }));
+    const failed = await screen.findByTestId('offline-failed');
+    await act(async () => fireEvent.click(within(failed).getByRole('button', { name: 'Drop it' })));
+    await vi.waitFor(() => expect(screen.queryByTestId('offline-failed')).toBeNull());
+    expect(posts).toHaveLength(1);
   });
 });

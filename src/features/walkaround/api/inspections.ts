@@ -2,8 +2,8 @@ import { queryOptions, useMutation, useQueryClient, type QueryClient } from '@ta
 import type { CoverageBody, FindingBody, FindingView, InspectionView, StartInspectionBody } from '../../../../shared/api/walkaround';
 import { coverageOf } from '../../../../shared/walkaround/routine';
 import type { z } from 'zod';
-import { api } from '../../../lib/api-client';
-import { withQueued } from '../offline/sync';
+import { api, ApiError } from '../../../lib/api-client';
+import { mustQueue, queueMark, withQueued } from '../offline/sync';
 
 export interface InspectionListItem {
   id: string;
@@ -19,7 +19,9 @@ export interface InspectionListItem {
 
 /** A finding as the client holds it: the server's, or one placed here and not yet stored. */
 export type ClientFinding = FindingView & { pending?: boolean };
-export type ClientInspection = Omit<InspectionView, 'findings'> & { findings: ClientFinding[] };
+/** A part's coverage as the client holds it; `pending` while the change waits on this device to be sent. */
+export type ClientItem = InspectionView['items'][number] & { pending?: boolean };
+export type ClientInspection = Omit<InspectionView, 'findings' | 'items'> & { findings: ClientFinding[]; items: ClientItem[] };
 
 export const inspectionKeys = {
   all: ['inspections'] as const,
@@ -79,15 +81,50 @@ async function optimistic(qc: QueryClient, id: string, change: (i: ClientInspect
   return { before };
 }
 
+export const newIdempotencyKey = () =>
+  typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `k${Date.now()}${Math.random().toString(36).slice(2)}`;
+
+export interface CoverageMarkInput {
+  body: z.infer<typeof CoverageBody>;
+  /** The parts' names and the area, for the waiting list should the mark have to wait on the device. */
+  parts?: string[];
+  area?: string | null;
+}
+
+/**
+ * Marks parts passed, not applicable, back to do, or a gap with its reason. Each mark carries its own
+ * Idempotency-Key. Without a connection (or while earlier changes to this inspection still wait) it is
+ * kept in the offline queue, in order, and shown as waiting; the screen does not roll it back.
+ */
 export function useSetCoverage(id: string) {
   const qc = useQueryClient();
   const key = inspectionKeys.one(id);
   return useMutation({
     networkMode: 'always',
-    mutationFn: (body: z.infer<typeof CoverageBody>) => api<ClientInspection>(`/inspections/${id}/coverage`, { method: 'POST', body }),
-    onMutate: (body) => optimistic(qc, id, (i) => setItems(i, body.instanceIds, body.state, body.reason ?? null)),
+    mutationFn: async ({ body, parts = [], area = null }: CoverageMarkInput): Promise<{ queued: true } | { queued: false; inspection: ClientInspection }> => {
+      const idem = newIdempotencyKey();
+      const queue = () =>
+        queueMark(qc, { key: idem, inspectionId: id, body, preview: { parts, area } }).then(
+          () => ({ queued: true as const }),
+          () => {
+            throw new ApiError(0, 'not_kept', 'No connection, and this device could not keep the mark; mark it again when the connection returns');
+          },
+        );
+      if (mustQueue(id)) return queue();
+      try {
+        const inspection = await api<ClientInspection>(`/inspections/${id}/coverage`, { method: 'POST', body, headers: { 'Idempotency-Key': idem } });
+        return { queued: false, inspection };
+      } catch (e) {
+        if (e instanceof ApiError && e.status === 0) return queue();
+        throw e;
+      }
+    },
+    onMutate: ({ body }) => optimistic(qc, id, (i) => setItems(i, body.instanceIds, body.state, body.reason ?? null)),
     onError: (_e, _b, ctx) => ctx?.before && qc.setQueryData(key, ctx.before),
-    onSuccess: (insp) => qc.setQueryData(key, insp),
+    onSuccess: (r) => {
+      // A queued mark is already laid over the cached inspection, flagged as waiting.
+      if (!r.queued) qc.setQueryData(key, withQueued(r.inspection));
+    },
   });
 }
 

@@ -37,7 +37,7 @@ export function HazardGate({ area, onAck }: { area: Pick<RoutineArea, 'label'>; 
 export interface AreaPanelProps {
   area: RoutineArea;
   inspectionId: string;
-  states: Map<string, { state: PartState; reason: string | null }>;
+  states: Map<string, { state: PartState; reason: string | null; pending?: boolean }>;
   labels: Map<string, { label: string; kind: string }>;
   findings: readonly ClientFinding[];
   busy: boolean;
@@ -69,13 +69,18 @@ export function AreaPanel({ area, inspectionId, states, labels, findings, busy, 
       </div>
       <ol className="divide-y-2 divide-rule rounded-md border-2 border-rule" aria-label={`Parts of ${area.label}`}>
         {area.instanceIds.map((id) => {
-          const s = states.get(id) ?? { state: 'todo' as PartState, reason: null };
+          const s: { state: PartState; reason: string | null; pending?: boolean } = states.get(id) ?? { state: 'todo', reason: null };
           const label = labels.get(id)?.label ?? id;
           return (
-            <li key={id} className="space-y-2 p-2" data-instance={id} data-state={s.state}>
+            <li key={id} className="space-y-2 p-2" data-instance={id} data-state={s.state} data-pending={s.pending ? 'true' : undefined}>
               <div className="flex flex-wrap items-center gap-2">
                 <StateChip state={s.state} />
-                <span className="min-w-32 flex-1 text-lg leading-tight">{label}</span>
+                <span className="min-w-32 flex-1 text-lg leading-tight">
+                  {label}
+                  {s.pending && (
+                    <span className="ml-2 inline-block rounded border-2 border-dashed border-shop px-1.5 text-base leading-snug whitespace-nowrap">Waiting to send</span>
+                  )}
+                </span>
                 <div className="flex gap-1.5">
                   {s.state === 'todo' && (
                     <>

@@ -1,7 +1,10 @@
 import type { CoverageSummary } from '../../../../shared/api/walkaround';
 
-/** How much of the routine is done: passed, with a finding, not applicable, and what is left. */
-export function CoverageBar({ coverage }: { coverage: CoverageSummary }) {
+/**
+ * How much of the routine is done: passed, with a finding, not applicable, and what is left.
+ * `waiting` parts are counted as the server will count them once the changes kept on this device arrive.
+ */
+export function CoverageBar({ coverage, waiting = 0 }: { coverage: CoverageSummary; waiting?: number }) {
   const { total, passed, findings, notApplicable } = coverage;
   const left = total - passed - findings - notApplicable;
   const pct = (n: number) => (total ? (n / total) * 100 : 0);
@@ -34,6 +37,11 @@ export function CoverageBar({ coverage }: { coverage: CoverageSummary }) {
           {notApplicable} n.a.
         </span>
         <span data-testid="coverage-left">{left} left</span>
+        {waiting > 0 && (
+          <span data-testid="coverage-waiting" className="rounded border-2 border-dashed border-shop px-1.5 leading-snug">
+            {waiting} {waiting === 1 ? 'part' : 'parts'} waiting to send
+          </span>
+        )}
       </p>
     </div>
   );

@@ -17,8 +17,8 @@ export function OfflineBanner({ failed = false }: { failed?: boolean }) {
   if (online && !failed) return null;
   return (
     <div role="status" className="no-print rounded-md border-2 border-graphite bg-graphite p-3 text-lg font-bold text-paper">
-      No connection. Findings you pin are kept on this device and sent, in order, when the connection returns; anything else you do
-      waits for it.
+      No connection. Findings you pin and parts you pass or mark n.a. are kept on this device and sent, in order, when the connection
+      returns; signing waits for it.
     </div>
   );
 }

@@ -5,6 +5,7 @@ import { unitLayout } from '../../../../shared/layout/unit-layout';
 import { ApiError } from '../../../lib/api-client';
 import { inspectionQuery, useSetCoverage, useSign, type ClientInspection } from '../api/inspections';
 import { drawingQuery } from '../api/units';
+import { useOfflineQueue } from '../offline/sync';
 import { endName, kindName } from '../lib/format';
 import { instanceLabels } from '../lib/walk';
 import { CoverageBar } from './coverage-bar';
@@ -62,6 +63,8 @@ function Sign({ insp }: { insp: ClientInspection }) {
   const open = gaps.filter((g) => !g.reason);
   const signError = sign.error instanceof ApiError ? sign.error : null;
   const pwError = signError?.fields?.password;
+  // Signed first, the changes still on this device would arrive at a closed record and be refused.
+  const waiting = useOfflineQueue().pending.filter((p) => p.inspectionId === insp.id).length;
 
   return (
     <div className="mx-auto max-w-3xl space-y-5">
@@ -79,7 +82,7 @@ function Sign({ insp }: { insp: ClientInspection }) {
         <p>
           F on the {endName(insp.frontEndSeen)} · {insp.place ?? 'no yard'} · routine “{insp.routine.name}”
         </p>
-        <CoverageBar coverage={insp.coverage} />
+        <CoverageBar coverage={insp.coverage} waiting={insp.items.filter((i) => i.pending).length} />
         <p className="text-lg">
           {insp.coverage.done} of {insp.coverage.total} parts done: {insp.coverage.passed} passed, {insp.coverage.findings} with a finding,{' '}
           {insp.coverage.notApplicable} not applicable, {gaps.length} left.
@@ -106,7 +109,9 @@ function Sign({ insp }: { insp: ClientInspection }) {
                     label={labels.get(g.instanceId)?.label ?? g.instanceId}
                     reason={g.reason}
                     busy={coverage.isPending}
-                    onSave={(reason) => coverage.mutate({ instanceIds: [g.instanceId], state: 'gap', reason })}
+                    onSave={(reason) =>
+                      coverage.mutate({ body: { instanceIds: [g.instanceId], state: 'gap', reason }, parts: [labels.get(g.instanceId)?.label ?? g.instanceId] })
+                    }
                   />
                 </li>
               ))}
@@ -164,10 +169,16 @@ function Sign({ insp }: { insp: ClientInspection }) {
             {signError.message}
           </p>
         )}
-        <button type="submit" className="btn-primary w-full text-xl sm:w-auto" disabled={sign.isPending || !password || open.length > 0}>
+        <button type="submit" className="btn-primary w-full text-xl sm:w-auto" disabled={sign.isPending || !password || open.length > 0 || waiting > 0}>
           {sign.isPending ? 'Signing…' : 'Sign the record'}
         </button>
         {open.length > 0 && <p className="text-base text-graphite-2">Signing opens once every gap has a reason.</p>}
+        {waiting > 0 && (
+          <p className="text-base font-bold" data-testid="sign-waiting">
+            {waiting} {waiting === 1 ? 'change is' : 'changes are'} still waiting on this device to be sent; signing opens once {waiting === 1 ? 'it has' : 'they have'}{' '}
+            arrived.
+          </p>
+        )}
       </form>
     </div>
   );

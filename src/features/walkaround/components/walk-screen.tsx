@@ -186,6 +186,14 @@ function Walk({ insp }: { insp: ClientInspection }) {
     focusSoon(`walk-area-${areaIndex}`);
   };
 
+  // The parts' names go with the mark, for the waiting list if it has to wait on the device.
+  const mark = (ids: string[], state: 'passed' | 'not_applicable' | 'gap', reason?: string) =>
+    coverage.mutate({
+      body: { instanceIds: ids, state, ...(reason ? { reason } : {}) },
+      parts: ids.map((i) => labels.get(i)?.label ?? i),
+      area: ids.length > 1 ? area.label : null,
+    });
+
   const coverageError = coverage.error instanceof ApiError ? coverage.error : null;
   const busy = coverage.isPending;
   const differs = insp.frontEndSeen !== insp.frontEndRecorded;
@@ -216,9 +224,9 @@ function Walk({ insp }: { insp: ClientInspection }) {
       labels={labels}
       findings={insp.findings}
       busy={busy}
-      onPass={(ids) => coverage.mutate({ instanceIds: ids, state: 'passed' })}
-      onNotApplicable={(iid, reason) => coverage.mutate({ instanceIds: [iid], state: 'not_applicable', reason })}
-      onUndo={(iid) => coverage.mutate({ instanceIds: [iid], state: 'gap' })}
+      onPass={(ids) => mark(ids, 'passed')}
+      onNotApplicable={(iid, reason) => mark([iid], 'not_applicable', reason)}
+      onUndo={(iid) => mark([iid], 'gap')}
       onDefect={onDefect}
       next={areaIndex < areas.length - 1 ? { label: areas[areaIndex + 1].label, go: () => goArea(areaIndex + 1) } : undefined}
     />
@@ -242,7 +250,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
             <span className="hidden sm:inline">Review and sign →</span>
           </Link>
         </div>
-        <CoverageBar coverage={insp.coverage} />
+        <CoverageBar coverage={insp.coverage} waiting={insp.items.filter((i) => i.pending).length} />
       </div>
 
       <OfflineBanner failed={coverageError?.status === 0} />
@@ -258,7 +266,7 @@ function Walk({ insp }: { insp: ClientInspection }) {
           inspection uses what you saw.
         </p>
       )}
-      {coverageError && coverageError.status !== 0 && (
+      {coverageError && (coverageError.status !== 0 || coverageError.code === 'not_kept') && (
         <p role="alert" className="field-error">
           Not saved: {coverageError.message}
         </p>

@@ -92,11 +92,12 @@ export function pinsForView(findings: readonly ClientFinding[], view: ViewKey, l
 
 export type PartState = 'passed' | 'finding' | 'not_applicable' | 'todo';
 
-export function itemStates(insp: Pick<ClientInspection, 'items'>): Map<string, { state: PartState; reason: string | null }> {
-  const m = new Map<string, { state: PartState; reason: string | null }>();
+/** Each part's state; `pending` while the change that made it waits on this device to be sent. */
+export function itemStates(insp: Pick<ClientInspection, 'items'>): Map<string, { state: PartState; reason: string | null; pending?: boolean }> {
+  const m = new Map<string, { state: PartState; reason: string | null; pending?: boolean }>();
   for (const i of insp.items) {
     const s = i.state === 'passed' || i.state === 'finding' || i.state === 'not_applicable' ? i.state : 'todo';
-    m.set(i.instanceId, { state: s, reason: i.reason });
+    m.set(i.instanceId, i.pending ? { state: s, reason: i.reason, pending: true } : { state: s, reason: i.reason });
   }
   return m;
 }

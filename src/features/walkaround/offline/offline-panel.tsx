@@ -1,16 +1,16 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import { noteText, type FailedFinding } from './queue';
-import { flushNow, offlineQueue, startOfflineSync, useOfflineQueue } from './sync';
+import { entryTitle, isFinding, isMark, noteText, type FailedEntry, type QueuedEntry } from './queue';
+import { flushNow, keepRefusedAsNote, offlineQueue, startOfflineSync, useOfflineQueue } from './sync';
 
-/** Starts the queue's sending for the walkaround screens (app start, connection back, retry timer). */
+/** Starts the queue's sending for the walkaround screens (app start, connection back, page shown again, retry timer). */
 export function OfflineSync() {
   const qc = useQueryClient();
   useEffect(() => startOfflineSync(qc), [qc]);
   return null;
 }
 
-function FailedRow({ f }: { f: FailedFinding }) {
+function CopyNote({ f }: { f: FailedEntry }) {
   const [copied, setCopied] = useState<'yes' | 'no' | null>(null);
   const text = noteText(f);
   const copy = async () => {
@@ -23,20 +23,62 @@ function FailedRow({ f }: { f: FailedFinding }) {
     }
   };
   return (
-    <li className="card space-y-2 p-3" data-testid="failed-finding">
-      <p className="text-lg font-bold">
-        {f.entry.preview.label}: {f.entry.preview.defectLabel}
-      </p>
-      <p>{f.message}</p>
+    <>
       {copied === 'no' && <pre className="whitespace-pre-wrap rounded bg-paper-2 p-2 text-base select-all">{text}</pre>}
+      <button type="button" className="btn min-h-12" onClick={() => void copy()}>
+        {copied === 'yes' ? 'Note copied' : 'Copy the note'}
+      </button>
+    </>
+  );
+}
+
+function FailedRow({ f }: { f: FailedEntry }) {
+  // The server asks whether a reading within its limit is worth keeping: the same question the form asks online.
+  const asks = isFinding(f.entry) && f.code === 'check_passed';
+  return (
+    <li className="card space-y-2 p-3" data-testid="failed-entry" data-kind={isMark(f.entry) ? 'coverage' : 'finding'}>
+      <p className="text-lg font-bold">{entryTitle(f.entry)}</p>
+      <p>{f.message}</p>
+      {isMark(f.entry) && !asks && <p className="text-base">Mark it again on the walk if the record is still open, or add it to a correction.</p>}
       <div className="flex flex-wrap gap-2">
-        <button type="button" className="btn min-h-12" onClick={() => void copy()}>
-          {copied === 'yes' ? 'Note copied' : 'Copy the note'}
-        </button>
-        <button type="button" className="btn min-h-12" onClick={() => void offlineQueue.dismiss(f.entry.key)}>
-          Dismiss
-        </button>
+        {asks ? (
+          <>
+            <button type="button" className="btn-primary min-h-12" onClick={() => void keepRefusedAsNote(f.entry.key)}>
+              Keep as a note
+            </button>
+            <button type="button" className="btn min-h-12" onClick={() => void offlineQueue.dismiss(f.entry.key)}>
+              Drop it
+            </button>
+          </>
+        ) : (
+          <>
+            <CopyNote f={f} />
+            <button type="button" className="btn min-h-12" onClick={() => void offlineQueue.dismiss(f.entry.key)}>
+              Dismiss
+            </button>
+          </>
+        )}
       </div>
+    </li>
+  );
+}
+
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** "3 findings and 2 coverage marks": what waits, in the inspector's words. */
+export function waitingSummary(pending: readonly QueuedEntry[]) {
+  const findings = pending.filter(isFinding).length;
+  const marks = pending.length - findings;
+  return [findings && plural(findings, 'finding', 'findings'), marks && plural(marks, 'coverage mark', 'coverage marks')].filter(Boolean).join(' and ');
+}
+
+function WaitingRow({ q }: { q: QueuedEntry }) {
+  if (isMark(q)) return <li data-kind="coverage">{entryTitle(q)}</li>;
+  return (
+    <li data-kind="finding">
+      {entryTitle(q)}
+      {q.photos.length > 0 && ` (${plural(q.photos.length, 'photo', 'photos')})`}
+      {q.findingId && ' — stored, photos still to send'}
     </li>
   );
 }
@@ -51,20 +93,16 @@ export function OfflinePanel() {
         <section aria-labelledby="offline-waiting" className="rounded-md border-l-8 border-shop bg-paper-2 p-3" data-testid="offline-waiting">
           <div className="flex flex-wrap items-center justify-between gap-2">
             <h2 id="offline-waiting" className="text-xl font-bold">
-              Waiting to send: {pending.length} {pending.length === 1 ? 'finding' : 'findings'}
+              Waiting to send: {waitingSummary(pending)}
             </h2>
             <button type="button" className="btn min-h-12" onClick={() => void flushNow()}>
               Send now
             </button>
           </div>
-          <p>Kept on this device; sent in the order pinned when the connection returns. Each is stored once, however often it is sent.</p>
+          <p>Kept on this device; sent in the order made, the moment the connection returns. Each is stored once, however often it is sent.</p>
           <ol className="list-decimal pl-6">
             {pending.map((q) => (
-              <li key={q.key}>
-                {q.preview.label}: {q.preview.defectLabel}
-                {q.photos.length > 0 && ` (${q.photos.length} ${q.photos.length === 1 ? 'photo' : 'photos'})`}
-                {q.findingId && ' — stored, photos still to send'}
-              </li>
+              <WaitingRow key={q.key} q={q} />
             ))}
           </ol>
         </section>
@@ -74,7 +112,7 @@ export function OfflinePanel() {
           <h2 id="offline-failed" className="text-xl font-bold text-federal">
             Could not be sent
           </h2>
-          <p>The server refused these; they are not on the record. Copy the note to add it where it belongs, then dismiss it.</p>
+          <p>The server refused these; they are not on the record. Each says why: copy the note to add it where it belongs, then dismiss it.</p>
           <ul className="space-y-2">
             {failed.map((f) => (
               <FailedRow key={f.entry.key} f={f} />
