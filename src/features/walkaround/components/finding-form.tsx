@@ -9,11 +9,11 @@ import type { ViewCoord } from '../../../../shared/drawings/types';
 import { viewPointToBody } from '../../../../shared/orientation';
 import { ApiError } from '../../../lib/api-client';
 import { defectTypesQuery, type DefectTypeItem } from '../api/defect-types';
-import { useAddFinding } from '../api/inspections';
+import { newIdempotencyKey, useAddFinding } from '../api/inspections';
 import { liveCheck, readingKind } from '../lib/check-input';
 import { emptyFindingForm, findingFormSchema, formFieldOf, readingOf, toFindingBody, type FindingFormValues } from '../lib/finding-form';
 import { PhotoPicker, PhotoUploads } from './photo-uploads';
-import { queueFinding } from '../offline/sync';
+import { mustQueue, queueFinding } from '../offline/sync';
 import { WeightMark } from './weight-mark';
 
 /** The part and spot a finding is pinned on. */
@@ -45,7 +45,6 @@ export interface FindingFormProps {
   onClose(): void;
 }
 
-const newKey = () => (typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `k${Date.now()}${Math.random().toString(36).slice(2)}`);
 
 function RuleRef({ d }: { d: DefectTypeItem }) {
   if (!d.rule) return <span className="text-graphite-2">{d.weight === 'shop' ? 'Railroad standard' : 'Worth watching'}</span>;
@@ -97,10 +96,11 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
   const types = useQuery(defectTypesQuery(target.kind));
   const add = useAddFinding(inspectionId);
   const qc = useQueryClient();
-  const [idem] = useState(() => draft?.idempotencyKey ?? newKey());
+  const [idem] = useState(() => draft?.idempotencyKey ?? newIdempotencyKey());
   const [files, setFiles] = useState<File[]>([]);
   const [moreFiles, setMoreFiles] = useState<File[]>([]);
-  const [asking, setAsking] = useState<{ limit: string; source: string } | null>(null);
+  /** The reading is within its limit: keep it as a note, or drop it? `offline` when this device answered for the server. */
+  const [asking, setAsking] = useState<{ limit: string; source: string; offline?: boolean } | null>(null);
   const [general, setGeneral] = useState<string | null>(null);
   const [stored, setStored] = useState<FindingView | null>(null);
   const heading = useRef<HTMLHeadingElement>(null);
@@ -159,6 +159,25 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
       weight,
       rule: defect?.rule ?? null,
     };
+    // Kept on the device with its photos and sent when the connection returns. A reading within its
+    // limit is asked about first, here, from the same check the server runs (shared/), rather than
+    // refused later when the inspector has walked on.
+    const keep = () => {
+      if (passed && outcome?.ok && !keepAsNote) {
+        const o = outcome.output as unknown as { limit: string; source: string };
+        setAsking({ limit: o.limit, source: o.source, offline: true });
+        return;
+      }
+      void queueFinding(qc, { inspectionId, body: { ...body, idempotencyKey: idem }, preview, photos: files.map((f) => ({ blob: f, name: f.name })) }).then(
+        () => {
+          onDraft?.(null);
+          onClose();
+        },
+        () => setGeneral('No connection, and this device could not keep the finding; it stays in this form.'),
+      );
+    };
+    // Earlier changes to this inspection still wait on the device: this one goes behind them, never ahead.
+    if (mustQueue(inspectionId)) return keep();
     add.mutate(
       { body, preview },
       {
@@ -169,17 +188,7 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
         },
         onError: (e) => {
           if (!(e instanceof ApiError)) return setGeneral('Something went wrong; the finding was not stored.');
-          // No connection: kept on the device with its photos and sent when the connection returns.
-          if (e.status === 0) {
-            void queueFinding(qc, { inspectionId, body: { ...body, idempotencyKey: idem }, preview, photos: files.map((f) => ({ blob: f, name: f.name })) }).then(
-              () => {
-                onDraft?.(null);
-                onClose();
-              },
-              () => setGeneral('No connection, and this device could not keep the finding; it stays in this form.'),
-            );
-            return;
-          }
+          if (e.status === 0) return keep();
           if (e.code === 'check_passed') {
             const c = (e.extra?.check ?? {}) as { limit?: string; source?: string };
             setAsking({ limit: c.limit ?? '', source: c.source ?? '' });
@@ -360,6 +369,7 @@ export function FindingForm({ inspectionId, target, humpStencilled, timeZone, dr
             <strong>The reading is within the limit</strong>
             {asking.limit && ` (${asking.limit}, ${asking.source})`}. Keep it as a note, or drop it?
           </p>
+          {asking.offline && <p className="text-base">No connection: a note is kept on this device and sent when the connection returns.</p>}
           <div className="flex flex-wrap gap-2">
             <button type="button" className="btn-primary" disabled={add.isPending} onClick={handleSubmit((v) => send(v, true))}>
               Keep as a note
