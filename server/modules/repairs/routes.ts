@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { IdParams } from '../../../shared/api/common';
-import { AssignBody, QueueQuery, RepairBody, SendBackBody, VerifyBody, VoidBody } from '../../../shared/api/repairs';
+import { AssignBody, QueueFilterQuery, QueueQuery, RepairBody, SendBackBody, VerifyBody, VoidBody } from '../../../shared/api/repairs';
 import { CAN } from '../../../shared/domain/roles';
 import type { FindingAction } from '../../../shared/repairs/transitions';
 import { AppError } from '../../http/errors';
@@ -27,18 +27,19 @@ export function repairsRoutes(deps: Deps): RouteDef[] {
       method: 'get',
       path: '/repairs',
       access: CAN.readRecords,
-      summary: 'The repair queue: open, in repair and repaired findings, non-complying units first',
+      summary:
+        'The repair queue, one page at a time: open, in repair and repaired findings, non-complying units first under `sort` (`unit`, `finding`, `weight`, `state`, `assignee` or `age`, `.asc` or `.desc`); `limit` (default 100, at most 500) and `cursor` (the `nextCursor` of the page before). Answers `{ items, total, nextCursor, assignees, toVerify, tagsToClear }`',
       query: QueueQuery,
-      handler: async ({ query }) => ({ body: { items: await svc.queue(query) } }),
+      handler: async ({ query }) => ({ body: await svc.queue(query) }),
     }),
     route({
       method: 'get',
       path: '/repairs.csv',
       access: CAN.readRecords,
-      summary: 'The repair queue as CSV',
-      query: QueueQuery,
+      summary: 'The whole repair queue matching the filters as CSV, in the same `sort` as the screen',
+      query: QueueFilterQuery,
       handler: async ({ query, res }) => {
-        const rows = await svc.queue(query);
+        const rows = await svc.queueAll(query);
         sendCsv(
           res,
           'repair-queue.csv',

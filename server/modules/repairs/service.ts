@@ -7,7 +7,8 @@ import { AppError, forbidden, notFound } from '../../http/errors';
 import type { Person } from '../../http/routes';
 import { audit } from '../../lib/audit';
 import { priorRepairs } from '../hot-spots/repository';
-import { repairsRepository } from './repository';
+import type { QueueFilterQuery, QueuePage, QueueQuery } from '../../../shared/api/repairs';
+import { queueCursorFits, repairsRepository } from './repository';
 
 const EVENT_WORDS: Record<string, string> = {
   created: 'pinned it',
@@ -29,9 +30,39 @@ export interface ActionInput {
   reason?: string;
 }
 
+/**
+ * The cursor is the sort and the key values of the last row shown, so the next page starts right after
+ * that row even when rows were added or changed meanwhile (no row twice, none skipped). Opaque to clients.
+ */
+function encodeCursor(sort: QueueFilterQuery['sort'], keys: readonly unknown[]): string {
+  return Buffer.from(JSON.stringify({ s: sort ?? '', k: keys })).toString('base64url');
+}
+
+function decodeCursor(cursor: string, sort: QueueFilterQuery['sort']): unknown[] {
+  let c: unknown;
+  try {
+    c = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8'));
+  } catch {
+    c = null;
+  }
+  const ok = typeof c === 'object' && c !== null && (c as { s?: unknown }).s === (sort ?? '') && Array.isArray((c as { k?: unknown }).k) && queueCursorFits(sort, (c as { k: unknown[] }).k);
+  if (!ok) throw new AppError('validation', 'The query is not valid', { cursor: 'Not a cursor of this queue and sort: start again from the first page' });
+  return (c as { k: unknown[] }).k;
+}
+
 export function repairsService(db: Db) {
   return {
-    queue: repairsRepository(db).queue,
+    /** One page of the queue, how many rows match, and the filter-independent summary the screen shows. */
+    async queue(q: QueueQuery): Promise<QueuePage> {
+      const { limit, cursor, ...filters } = q;
+      const afterKeys = cursor === undefined ? null : decodeCursor(cursor, filters.sort);
+      const repo = repairsRepository(db);
+      const [page, summary] = await Promise.all([repo.queuePage(filters, limit, afterKeys), repo.queueSummary(filters)]);
+      return { items: page.items, ...summary, nextCursor: page.lastKeys ? encodeCursor(filters.sort, page.lastKeys) : null };
+    },
+
+    /** Every row matching the filters, in the same order as the pages (the CSV export). */
+    queueAll: (q: QueueFilterQuery) => repairsRepository(db).queueAll(q),
 
     async detail(id: string) {
       const d = await repairsRepository(db).findingDetail(id);
