@@ -30,6 +30,8 @@ vi.mock('../../src/features/drawing', () => ({
 
 const { WalkScreen } = await import('../../src/features/walkaround/components/walk-screen');
 const { OfflinePanel, OfflineSync } = await import('../../src/features/walkaround/offline/offline-panel');
+const { SignScreen } = await import('../../src/features/walkaround/components/sign-screen');
+const { offlineQueue } = await import('../../src/features/walkaround/offline/sync');
 
 const drawing = parseDrawing(readFileSync('diagrams/four_axle_road.svg', 'utf8'), 'four_axle_road.svg');
 const routine = defaultRoutine(drawing);
@@ -188,6 +190,31 @@ describe('coverage marks without a connection', () => {
     await act(async () => void document.dispatchEvent(new Event('visibilitychange')));
     await waitFor(() => expect(items).toEqual([{ instanceId: id, state: 'passed', reason: null }]), { timeout: 1500 });
     await waitFor(() => expect(screen.queryByTestId('offline-waiting')).toBeNull());
+  });
+});
+
+describe('signing with changes still on the device', () => {
+  it('waits until they have arrived (signed first, they would reach a closed record and be refused)', async () => {
+    items = routine.areas.flatMap((a) => a.instanceIds).map((instanceId) => ({ instanceId, state: 'passed', reason: null }));
+    await offlineQueue.enqueueMark({ key: 'sign-wait-1', inspectionId: ID, body: { instanceIds: [routine.areas[0].instanceIds[0]], state: 'not_applicable', reason: 'Not fitted' }, preview: { parts: ['x'], area: null } });
+    const qc = new QueryClient({ defaultOptions: { queries: { retry: false } } });
+    const user = userEvent.setup();
+    render(
+      <QueryClientProvider client={qc}>
+        <MemoryRouter initialEntries={[`/walkaround/inspections/${ID}/sign`]}>
+          <Routes>
+            <Route path="/walkaround/inspections/:id/sign" element={<SignScreen />} />
+          </Routes>
+        </MemoryRouter>
+      </QueryClientProvider>,
+    );
+    await user.type(await screen.findByLabelText('Your password'), 'hoodline-demo');
+    expect(screen.getByTestId('sign-waiting')).toHaveTextContent('1 change is still waiting on this device to be sent; signing opens once it has arrived.');
+    const sign = screen.getByRole('button', { name: 'Sign the record' });
+    expect(sign).toBeDisabled();
+    await act(() => offlineQueue.flush({ postFinding: async () => ({ id: 'x' }), uploadPhoto: async () => ({}), postCoverage: async () => ({}) }));
+    expect(screen.queryByTestId('sign-waiting')).toBeNull();
+    expect(sign).toBeEnabled();
   });
 });
 

@@ -148,3 +148,21 @@ describe('a finding refused because its reading is within the limit', () => {
     expect(posts).toHaveLength(1);
   });
 });
+
+describe('a long waiting list', () => {
+  beforeEach(() => mem.clear());
+  it('shows the first five and folds the rest, in order, one tap away', async () => {
+    render(<OfflinePanel />);
+    for (let i = 1; i <= 7; i++)
+      await act(() => offlineQueue.enqueueMark({ key: `long-${i}`, inspectionId: 'insp-long', body: { instanceIds: [`p${i}`], state: 'passed' }, preview: { parts: [`Part ${i}`], area: null } }));
+    const waiting = screen.getByTestId('offline-waiting');
+    expect(within(waiting).getByRole('heading')).toHaveTextContent('Waiting to send: 7 coverage marks');
+    const [first, rest] = waiting.querySelectorAll('ol');
+    expect([...first.querySelectorAll('li')].map((l) => l.textContent)).toEqual([1, 2, 3, 4, 5].map((i) => `Passed: Part ${i}`));
+    expect(rest.getAttribute('start')).toBe('6');
+    expect([...rest.querySelectorAll('li')].map((l) => l.textContent)).toEqual(['Passed: Part 6', 'Passed: Part 7']);
+    expect(within(waiting).getByText('2 more, sent after these').closest('details')).not.toHaveAttribute('open');
+    await act(() => offlineQueue.flush({ postFinding: async () => ({ id: 'x' }), uploadPhoto: async () => ({}), postCoverage: async () => ({}) }));
+    expect(screen.queryByTestId('offline-waiting')).toBeNull();
+  });
+});

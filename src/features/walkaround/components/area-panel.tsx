@@ -78,7 +78,7 @@ export function AreaPanel({ area, inspectionId, states, labels, findings, busy, 
                 <span className="min-w-32 flex-1 text-lg leading-tight">
                   {label}
                   {s.pending && (
-                    <span className="ml-2 inline-block rounded border-2 border-dashed border-shop px-1.5 text-base leading-snug whitespace-nowrap">Waiting to send</span>
+                    <span className="mt-1 block w-fit rounded border-2 border-dashed border-shop px-1.5 text-base leading-snug">Waiting to send</span>
                   )}
                 </span>
                 <div className="flex gap-1.5">

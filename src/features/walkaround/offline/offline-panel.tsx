@@ -63,6 +63,9 @@ function FailedRow({ f }: { f: FailedEntry }) {
   );
 }
 
+/** Rows listed before the rest folds away. */
+const SHOWN = 5;
+
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 /** "3 findings and 2 coverage marks": what waits, in the inspector's words. */
@@ -101,10 +104,21 @@ export function OfflinePanel() {
           </div>
           <p>Kept on this device; sent in the order made, the moment the connection returns. Each is stored once, however often it is sent.</p>
           <ol className="list-decimal pl-6">
-            {pending.map((q) => (
+            {pending.slice(0, SHOWN).map((q) => (
               <WaitingRow key={q.key} q={q} />
             ))}
           </ol>
+          {pending.length > SHOWN && (
+            // A long spell without signal must not push the walk off the screen; the rest is one tap away.
+            <details>
+              <summary className="flex min-h-12 cursor-pointer items-center font-bold">{pending.length - SHOWN} more, sent after these</summary>
+              <ol className="list-decimal pl-6" start={SHOWN + 1}>
+                {pending.slice(SHOWN).map((q) => (
+                  <WaitingRow key={q.key} q={q} />
+                ))}
+              </ol>
+            </details>
+          )}
         </section>
       )}
       {failed.length > 0 && (
