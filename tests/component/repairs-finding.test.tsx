@@ -69,7 +69,7 @@ function routes(role: keyof typeof PEOPLE, f: FindingDetail | (() => FindingDeta
   return {
     'GET /api/auth/me': () => ({ body: PEOPLE[role] }),
     'GET /api/settings': () => ({ body: { name: 'Test Railroad', reportingMark: 'TR', timeZone: 'America/Chicago' } }),
-    'GET /api/repairs': () => ({ body: { items: [] } }),
+    'GET /api/repairs': () => ({ body: { items: [], total: 0, nextCursor: null, assignees: [], toVerify: 0, tagsToClear: [] } }),
     [`GET /api/findings/${FID}`]: () => ({ body: typeof f === 'function' ? f() : f }),
     [`GET /api/units/${UNIT}/tag`]: () => ({
       body: tag ?? {
@@ -253,7 +253,8 @@ describe('finding page', () => {
 
   it('assigns to a person picked from a list that includes the foreman', async () => {
     const r = routes('foreman', finding({ state: 'open' }));
-    r['GET /api/repairs'] = () => ({ body: { items: [{ id: 'x', assignedTo: 'p-mae', assigneeName: 'Mae Achterberg', unitId: 'u', state: 'in_repair', weight: 'shop' }] } });
+    // Whoever holds work in the queue (the queue's assignees, whatever its filters) is named too.
+    r['GET /api/repairs'] = () => ({ body: { items: [], total: 0, nextCursor: null, assignees: [{ id: 'p-mae', name: 'Mae Achterberg' }], toVerify: 0, tagsToClear: [] } });
     r[`POST /api/findings/${FID}/assign`] = () => ({ body: { id: FID, state: 'in_repair', version: 2, eventId: 'e7', unitId: UNIT, federalOpenOnUnit: 1 } });
     const calls = mockApi(r);
     const user = userEvent.setup();

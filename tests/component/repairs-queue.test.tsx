@@ -1,12 +1,14 @@
-// The repair queue screen with the API mocked at fetch: what it shows, how it sorts, what it asks the server.
-// Expected order follows the product brief §1/§6 (non-complying units first, 49 CFR 229.9); weights read by
-// shape and word as well as colour (brief §6b).
+// The repair queue screen with the API mocked at fetch: what it shows, which sort and page it asks the server
+// for, how "Show more" adds the next page. The server sorts and pages (tests/integration/repairs-queue.test.ts
+// checks its order: non-complying units first, product brief §1/§6 and 49 CFR 229.9); the mock here pages
+// by position and sorts only as far as the screen's expectations need. Weights read by shape and word as
+// well as colour (brief §6b).
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { MemoryRouter, Route, Routes } from 'react-router-dom';
+import { MemoryRouter, Route, Routes, useLocation } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import type { QueueItem } from '../../shared/api/repairs';
+import type { QueueItem, QueuePage } from '../../shared/api/repairs';
 import RepairsScreen from '../../src/features/repairs';
 
 type Reply = { status?: number; body?: unknown };
@@ -67,15 +69,45 @@ const QUEUE: QueueItem[] = [
   item({ roadNumber: 'HRL 1302', weight: 'note', label: 'Front headlight', defectLabel: 'Headlight dim', ageDays: 2 }),
 ];
 
+const ASSIGNEES = [
+  { id: 'p-mae', name: 'Mae Achterberg' },
+  { id: 'p-ray', name: 'Ray Lindqvist' },
+];
+const SUMMARY: Pick<QueuePage, 'assignees' | 'toVerify' | 'tagsToClear'> = { assignees: ASSIGNEES, toVerify: 0, tagsToClear: [] };
+
+/**
+ * GET /api/repairs as a stand-in: filters by yard, state and text, sorts by age when asked (non-complying
+ * first), pages by position with the server's default of 100, and answers the summary as given.
+ */
+function queueServer(items: QueueItem[], summary = SUMMARY): Handler {
+  return ({ url }) => {
+    const p = url.searchParams;
+    let rows = items.filter((i) => (!p.get('yard') || i.yardId === p.get('yard')) && (!p.get('state') || i.state === p.get('state')) && (!p.get('q') || i.label.toLowerCase().includes(p.get('q')!)));
+    const sort = p.get('sort');
+    if (sort?.startsWith('age.')) rows = [...rows].sort((a, b) => Number(b.nonComplying) - Number(a.nonComplying) || (sort === 'age.desc' ? b.ageDays - a.ageDays : a.ageDays - b.ageDays));
+    const from = Number(p.get('cursor') ?? 0);
+    const limit = Number(p.get('limit') ?? 100);
+    const page = rows.slice(from, from + limit);
+    const body: QueuePage = { items: page, total: rows.length, nextCursor: from + limit < rows.length ? String(from + limit) : null, ...summary };
+    return { body };
+  };
+}
+
 const ME = { id: 'p-ray', email: 'foreman@demo.example', name: 'Ray Lindqvist', role: 'foreman', yardId: YARD_A };
-function baseRoutes(items: QueueItem[] = QUEUE): Record<string, Handler> {
+function baseRoutes(items: QueueItem[] = QUEUE, summary = SUMMARY): Record<string, Handler> {
   return {
     'GET /api/auth/me': () => ({ body: ME }),
     'GET /api/settings': () => ({ body: { name: 'Test Railroad', reportingMark: 'TR', timeZone: 'America/Chicago' } }),
     'GET /api/yards': () => ({ body: { items: [ { id: YARD_A, code: 'MRL', name: 'Marlow Yard' }, { id: YARD_B, code: 'BTJ', name: 'Bittern Junction' } ] } }),
     'GET /api/units': () => ({ body: { items: [] } }),
-    'GET /api/repairs': ({ url }) => ({ body: { items: items.filter((i) => !url.searchParams.get('yard') || i.yardId === url.searchParams.get('yard')) } }),
+    'GET /api/repairs': queueServer(items, summary),
   };
+}
+
+/** Shows the address the screen keeps its filters and sort in. */
+function Address() {
+  const l = useLocation();
+  return <output data-testid="address">{l.pathname + l.search}</output>;
 }
 
 function renderAt(path = '/repairs') {
@@ -84,15 +116,29 @@ function renderAt(path = '/repairs') {
     <QueryClientProvider client={qc}>
       <MemoryRouter initialEntries={[path]}>
         <Routes>
-          <Route path="/repairs/*" element={<RepairsScreen />} />
+          <Route
+            path="/repairs/*"
+            element={
+              <>
+                <RepairsScreen />
+                <Address />
+              </>
+            }
+          />
         </Routes>
       </MemoryRouter>
     </QueryClientProvider>,
   );
 }
 
-const rowTexts = () => screen.getAllByTestId('queue-row').map((r) => within(r).getAllByRole('cell')[1].textContent);
-const rowUnits = () => screen.getAllByTestId('queue-row').map((r) => within(r).getAllByRole('cell')[0].textContent!.slice(0, 8));
+// Cells by tag: role queries over hundreds of rows are slow in jsdom.
+const rowTexts = () => screen.getAllByTestId('queue-row').map((r) => r.querySelectorAll('td')[1].textContent);
+const rowUnits = () => screen.getAllByTestId('queue-row').map((r) => r.querySelectorAll('td')[0].textContent!.slice(0, 8));
+const queueCalls = (calls: ReturnType<typeof mockApi>) => calls.filter((c) => c.path === '/api/repairs');
+const address = () => new URL(screen.getByTestId('address').textContent!, 'http://localhost').searchParams;
+
+/** `n` shop findings on ordinary units, as the server would order them (oldest first). */
+const many = (n: number) => Array.from({ length: n }, (_, i) => item({ roadNumber: `HRL ${3000 + (i % 9)}`, label: `Walkway ${String(i + 1).padStart(3, '0')}`, ageDays: n - i }));
 
 describe('repair queue', () => {
   it('lists the findings, non-complying units first with a NON-COMPLYING badge, weights as shape and word', async () => {
@@ -112,26 +158,91 @@ describe('repair queue', () => {
     expect(within(rows[3]).getByText('Note').closest('[data-weight]')!.querySelector('circle')!.getAttribute('fill')).not.toBe('none');
     // Each finding opens its detail page.
     expect(within(rows[0]).getByRole('link', { name: /Front pilot/ })).toHaveAttribute('href', `/repairs/findings/${QUEUE[0].id}`);
-    expect(screen.getByText(/4 findings · 1 non-complying unit first/)).toBeInTheDocument();
+    expect(screen.getByText('4 findings · non-complying units first')).toBeInTheDocument();
+    // Everything is on the one page: nothing more to show.
+    expect(screen.queryByRole('button', { name: 'Show more' })).toBeNull();
   });
 
-  it('sorts by a column the user picks but keeps non-complying units on top', async () => {
-    mockApi(baseRoutes());
+  it('asks the server to sort by the column picked, keeps the sort in the address, and shows the rows as they come', async () => {
+    const calls = mockApi(baseRoutes());
     const user = userEvent.setup();
     renderAt();
     await waitFor(() => expect(screen.getAllByTestId('queue-row')).toHaveLength(4));
+    expect(queueCalls(calls).every((c) => !c.search.has('sort'))).toBe(true);
     const found = screen.getByRole('button', { name: /^Found/ });
-    await user.click(found); // ages are numbers: the first click sorts oldest first
-    const order = rowTexts();
-    expect(rowUnits().slice(0, 2)).toEqual(['HRL 4104', 'HRL 4104']);
-    // Within the non-complying group, 9 days before 1 day; below, 30 days before 2 days.
-    expect(order[0]).toMatch(/sand box/);
-    expect(order[2]).toMatch(/traction motor/);
+    await user.click(found); // ages: the first tap puts the oldest first
+    await waitFor(() => expect(queueCalls(calls).at(-1)!.search.get('sort')).toBe('age.desc'));
+    expect(address().get('sort')).toBe('age.desc');
     expect(found.closest('th')).toHaveAttribute('aria-sort', 'descending');
+    // The server keeps non-complying units on top: 9 days before 1 day, then 30 days before 2 days.
+    await waitFor(() => expect(rowTexts()[0]).toMatch(/sand box/));
+    expect(rowTexts()[2]).toMatch(/traction motor/);
+    expect(screen.getByRole('link', { name: 'Export CSV' })).toHaveAttribute('href', '/api/repairs.csv?sort=age.desc');
     await user.click(found);
-    expect(rowTexts()[0]).toMatch(/Front pilot/);
-    expect(rowTexts()[2]).toMatch(/headlight/);
+    await waitFor(() => expect(queueCalls(calls).at(-1)!.search.get('sort')).toBe('age.asc'));
     expect(found.closest('th')).toHaveAttribute('aria-sort', 'ascending');
+    await waitFor(() => expect(rowTexts()[0]).toMatch(/Front pilot/));
+    expect(rowTexts()[2]).toMatch(/headlight/);
+    // A third tap goes back to the queue's own order.
+    await user.click(found);
+    await waitFor(() => expect(address().has('sort')).toBe(false));
+    expect(found.closest('th')).toHaveAttribute('aria-sort', 'none');
+    // Sorting is the server's: the table never reorders the rows it was given.
+    expect(rowTexts()[0]).toMatch(/Front pilot/);
+    expect(rowTexts()[1]).toMatch(/sand box/);
+  });
+
+  it('takes the sort from the address, and ignores one the server does not know', async () => {
+    const calls = mockApi(baseRoutes());
+    renderAt(`/repairs?sort=unit.asc&yard=${YARD_A}`);
+    await waitFor(() => expect(screen.getAllByTestId('queue-row').length).toBeGreaterThan(0));
+    expect(queueCalls(calls).map((c) => c.search.toString())).toEqual([`yard=${YARD_A}&sort=unit.asc`]);
+    expect(screen.getByRole('button', { name: /^Unit/ }).closest('th')).toHaveAttribute('aria-sort', 'ascending');
+    const calls2 = mockApi(baseRoutes());
+    renderAt('/repairs?sort=created_at.sideways');
+    await waitFor(() => expect(queueCalls(calls2)).toHaveLength(1));
+    expect(queueCalls(calls2)[0].search.has('sort')).toBe(false);
+  });
+
+  it('shows 100 of a long queue and adds the next page with "Show more", by mouse or keyboard', { timeout: 30_000 }, async () => {
+    const rows = many(250);
+    const calls = mockApi(baseRoutes(rows));
+    const user = userEvent.setup();
+    renderAt();
+    expect(await screen.findByText('Showing 100 of 250 findings')).toBeInTheDocument();
+    expect(screen.getAllByTestId('queue-row')).toHaveLength(100);
+    // By text, not by role: role queries over hundreds of rows are slow in jsdom. A real button (keyboard
+    // reachable), with a big target (the btn class is min-h-12, 48 px), next to how many are left.
+    const more = screen.getByText('Show more');
+    expect(more.tagName).toBe('BUTTON');
+    expect(more).toHaveClass('btn');
+    expect(screen.getByText('150 more findings')).toBeInTheDocument();
+    await user.click(more);
+    expect(await screen.findByText('Showing 200 of 250 findings')).toBeInTheDocument();
+    expect(queueCalls(calls).at(-1)!.search.get('cursor')).toBe('100');
+    // Keyboard: focus the button and press Enter.
+    screen.getByText('Show more').focus();
+    await user.keyboard('{Enter}');
+    expect(await screen.findByText('250 findings')).toBeInTheDocument();
+    expect(screen.getAllByTestId('queue-row')).toHaveLength(250);
+    expect(rowTexts().slice(98, 102)).toEqual(rows.slice(98, 102).map((r) => expect.stringContaining(r.label)));
+    expect(new Set(rowTexts()).size).toBe(250);
+    expect(screen.queryByText('Show more')).toBeNull();
+    // The CSV is every row matching, not only the pages shown.
+    expect(screen.getByText('Export CSV')).toHaveAttribute('href', '/api/repairs.csv');
+  });
+
+  it('keeps the rows shown and says so when the next page cannot be loaded', { timeout: 15_000 }, async () => {
+    const r = baseRoutes(many(150));
+    const page = r['GET /api/repairs'];
+    r['GET /api/repairs'] = (req) => (req.url.searchParams.get('cursor') ? { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on the server' } } } : page(req));
+    mockApi(r);
+    const user = userEvent.setup();
+    renderAt();
+    await user.click(await screen.findByRole('button', { name: 'Show more' }));
+    expect(await screen.findByRole('alert')).toHaveTextContent('More of the queue could not be loaded: Something went wrong on the server');
+    expect(screen.getAllByTestId('queue-row')).toHaveLength(100);
+    expect(screen.getByRole('button', { name: 'Show more' })).toBeEnabled();
   });
 
   it('sends the filters to the server, keeps them in the CSV link, and debounces the text search', { timeout: 15_000 }, async () => {
@@ -154,6 +265,17 @@ describe('repair queue', () => {
     expect(screen.getByRole('link', { name: 'Export CSV' }).getAttribute('href')).toContain('q=pilot');
   });
 
+  it('offers everyone with work in the queue as "assigned to" from the answer itself, with no second fetch', async () => {
+    const calls = mockApi(baseRoutes());
+    renderAt(`/repairs?yard=${YARD_B}`);
+    await waitFor(() => expect(screen.getAllByTestId('queue-row')).toHaveLength(1));
+    const picker = screen.getByLabelText('Assigned to');
+    expect(within(picker).getAllByRole('option').map((o) => o.textContent)).toEqual(['Anyone', 'Mae Achterberg', 'Ray Lindqvist']);
+    // Every queue request carried the filter: none fetched the whole queue for the names.
+    expect(queueCalls(calls).length).toBeGreaterThan(0);
+    expect(queueCalls(calls).every((c) => c.search.get('yard') === YARD_B)).toBe(true);
+  });
+
   it('flags a unit overdue on any interval of the due board wherever it appears in the queue', async () => {
     const r = baseRoutes();
     r['GET /api/due'] = () => ({ body: { on: '2026-03-04', timeZone: 'America/Chicago', items: [ { unitId: 'u-HRL2201', state: 'overdue' }, { unitId: 'u-HRL4104', state: 'due_soon' } ] } });
@@ -165,13 +287,13 @@ describe('repair queue', () => {
     expect(screen.getAllByText('Intervals overdue')).toHaveLength(1);
   });
 
-  it('takes an inspector straight to the repairs waiting to be verified', async () => {
-    const r = baseRoutes([...QUEUE, item({ roadNumber: 'HRL 2203', state: 'repaired', label: 'Front coupler' })]);
+  it('takes an inspector straight to the repairs waiting to be verified, counted by the server', async () => {
+    const r = baseRoutes([...QUEUE, item({ roadNumber: 'HRL 2203', state: 'repaired', label: 'Front coupler' })], { ...SUMMARY, toVerify: 7 });
     r['GET /api/auth/me'] = () => ({ body: { ...ME, id: 'p-dana', name: 'Dana Okafor', role: 'inspector' } });
     const calls = mockApi(r);
     const user = userEvent.setup();
     renderAt();
-    await user.click(await screen.findByRole('button', { name: 'Show the 1 repair waiting to be verified' }));
+    await user.click(await screen.findByRole('button', { name: 'Show the 7 repairs waiting to be verified' }));
     await waitFor(() => expect(calls.some((c) => c.path === '/api/repairs' && c.search.get('state') === 'repaired')).toBe(true));
     expect(screen.getByLabelText('State')).toHaveValue('repaired');
     // Inspectors do not clear tags.
@@ -188,21 +310,20 @@ describe('repair queue', () => {
     await act(async () => {});
   });
 
-  it('offers the foreman the tags ready to clear: tagged units with no federal finding needing work', async () => {
-    const routes = baseRoutes();
-    routes['GET /api/units'] = () => ({
-      body: {
-        items: [
-          { id: 'u-HRL4104', roadNumber: 'HRL 4104', nonComplying: true },
-          { id: 'u-HRL2204', roadNumber: 'HRL 2204', nonComplying: true },
-        ],
-      },
-    });
+  it('says so when the queue cannot be loaded', async () => {
+    const r = baseRoutes();
+    r['GET /api/repairs'] = () => ({ status: 400, body: { error: { code: 'validation', message: 'The query is not valid' } } });
+    mockApi(r);
+    renderAt();
+    expect(await screen.findByRole('alert')).toHaveTextContent('The queue could not be loaded: The query is not valid');
+  });
+
+  it('offers the foreman the tags ready to clear as the server lists them, and confirms who cleared one', async () => {
+    const routes = baseRoutes(QUEUE, { ...SUMMARY, tagsToClear: [{ unitId: 'u-HRL2204', roadNumber: 'HRL 2204' }] });
     routes['POST /api/units/u-HRL2204/tag/clear'] = () => ({ body: { unitId: 'u-HRL2204', tagId: 't1', clearedBy: 'Ray Lindqvist', clearedAt: '2026-03-04T15:30:00.000Z' } });
     const calls = mockApi(routes);
     const user = userEvent.setup();
     renderAt();
-    // HRL 4104 still has an open federal finding, so only HRL 2204 is offered.
     const btn = await screen.findByRole('button', { name: 'Clear the non-complying tag of HRL 2204' });
     expect(screen.queryByRole('button', { name: /tag of HRL 4104/ })).toBeNull();
     await user.click(btn);

@@ -6,7 +6,7 @@ import type { Me } from '../../../../shared/api/auth';
 import { can } from '../../../../shared/domain/roles';
 import { findingQuery, type FindingDetail } from '../api/finding';
 import { meQuery } from '../api/me';
-import { queueQuery } from '../api/queue';
+import { queueSummaryQuery } from '../api/queue';
 import { settingsQuery } from '../api/settings';
 import { eventWords, formatWhen } from '../lib/format';
 import { dueStatesQuery } from '../api/due-flags';
@@ -44,7 +44,7 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
   const uploads = useRepairUploads(f.id);
   const foreman = can(me.role, 'repair');
   const acts = can(me.role, 'inspect');
-  const queue = useQuery(queueQuery({}));
+  const queue = useQuery(queueSummaryQuery());
   const [extra, setExtra] = useState<File[]>([]);
   const overdue = useQuery(dueStatesQuery());
   const assignable = useQuery(assignableQuery(foreman));
@@ -52,7 +52,7 @@ function FindingView({ f, me, tz }: { f: FindingDetail; me: Me; tz?: string }) {
   const people = useMemo(() => {
     const m = new Map<string, string>([[me.id, `${me.name} (you)`]]);
     for (const p of assignable.data?.items ?? []) if (!m.has(p.id)) m.set(p.id, `${p.name} (${p.role})`);
-    for (const i of queue.data?.items ?? []) if (i.assignedTo && i.assigneeName && !m.has(i.assignedTo)) m.set(i.assignedTo, i.assigneeName);
+    for (const p of queue.data?.assignees ?? []) if (!m.has(p.id)) m.set(p.id, p.name);
     for (const e of f.events) {
       const d = e.details ?? {};
       if (e.kind === 'assigned' && typeof d.assigneeId === 'string' && typeof d.assigneeName === 'string' && !m.has(d.assigneeId)) m.set(d.assigneeId, d.assigneeName);

@@ -1,25 +1,19 @@
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingFn, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
-import type { QueueItem } from '../../../../shared/api/repairs';
-import { FINDING_STATES, FINDING_WEIGHTS } from '../../../../shared/domain/states';
+import type { QueueItem, QueueSortColumn } from '../../../../shared/api/repairs';
 import { ageWords, formatWhen } from '../lib/format';
 import { T } from '../lib/table-classes';
 import { NonComplyingBadge, OverdueBadge, StateBadge } from './badges';
 import { WeightMark } from './weight-mark';
 
 const col = createColumnHelper<QueueItem>();
-const byOrder =
-  (order: readonly string[], key: 'weight' | 'state'): SortingFn<QueueItem> =>
-  (a, b) =>
-    order.indexOf(a.original[key]) - order.indexOf(b.original[key]);
-
-/** The user's sort always sits under "non-complying units first". */
-const NC_FIRST = { id: 'nonComplying', desc: true };
-const HIDDEN = { nonComplying: false };
+// Column ids are the server's sort columns: the server sorts (always under "non-complying units first").
+const ID: { [K in QueueSortColumn]: K } = { unit: 'unit', finding: 'finding', weight: 'weight', state: 'state', assignee: 'assignee', age: 'age' };
 
 interface Props {
   items: QueueItem[];
+  /** At most one column; the rows arrive in this order from the server. */
   sorting: SortingState;
   onSortingChange: (s: SortingState) => void;
   timeZone?: string;
@@ -31,8 +25,8 @@ interface Props {
 export function QueueTable({ items, sorting, onSortingChange, timeZone, backSearch, overdue }: Props) {
   const columns = useMemo(
     () => [
-      col.accessor((r) => (r.nonComplying ? 1 : 0), { id: 'nonComplying', header: 'Non-complying' }),
       col.accessor('roadNumber', {
+        id: ID.unit,
         header: 'Unit',
         cell: (c) => (
           <div className="space-y-1">
@@ -46,6 +40,7 @@ export function QueueTable({ items, sorting, onSortingChange, timeZone, backSear
         ),
       }),
       col.accessor('label', {
+        id: ID.finding,
         header: 'Finding',
         cell: (c) => {
           const r = c.row.original;
@@ -58,15 +53,18 @@ export function QueueTable({ items, sorting, onSortingChange, timeZone, backSear
           );
         },
       }),
-      col.accessor('weight', { header: 'Weight', sortingFn: byOrder(FINDING_WEIGHTS, 'weight'), cell: (c) => <WeightMark weight={c.getValue()} /> }),
-      col.accessor('state', { header: 'State', sortingFn: byOrder(FINDING_STATES, 'state'), cell: (c) => <StateBadge state={c.getValue()} /> }),
+      col.accessor('weight', { id: ID.weight, header: 'Weight', cell: (c) => <WeightMark weight={c.getValue()} /> }),
+      col.accessor('state', { id: ID.state, header: 'State', cell: (c) => <StateBadge state={c.getValue()} /> }),
       col.accessor((r) => r.assigneeName ?? '', {
-        id: 'assignee',
+        id: ID.assignee,
         header: 'Assigned to',
         cell: (c) => (c.getValue() ? <span>{c.getValue()}</span> : <span className="text-graphite-2">Nobody yet</span>),
       }),
       col.accessor('ageDays', {
+        id: ID.age,
         header: 'Found',
+        // The first tap on an age puts the oldest first.
+        sortDescFirst: true,
         cell: (c) => (
           <div>
             <div className="font-bold">{ageWords(c.getValue())}</div>
@@ -79,20 +77,17 @@ export function QueueTable({ items, sorting, onSortingChange, timeZone, backSear
     ],
     [timeZone, backSearch, overdue],
   );
-  // Stable state objects: a fresh array each render would recompute the sorted rows, whose auto-reset
-  // schedules a table state update, which renders again, without end.
-  const state = useMemo(() => ({ sorting: [NC_FIRST, ...sorting], columnVisibility: HIDDEN }), [sorting]);
+  const state = useMemo(() => ({ sorting }), [sorting]);
   const table = useReactTable({
     data: items,
     columns,
     state,
-    onSortingChange: (u) => {
-      const next = typeof u === 'function' ? u(state.sorting) : u;
-      onSortingChange(next.filter((s) => s.id !== NC_FIRST.id));
-    },
+    manualSorting: true,
+    onSortingChange: (u) => onSortingChange(typeof u === 'function' ? u(sorting) : u),
     enableMultiSort: false,
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
+    // Rows keep their identity as more pages arrive.
+    getRowId: (r) => r.id,
   });
   return (
     <table className={T.table} aria-label="Repair queue">
