@@ -78,7 +78,7 @@ const LEVER = { x: 8.5, y: -31.4, z: 43 };
 type Reply = { status?: number; body?: unknown };
 interface Call { method: string; path: string; body: any }
 
-function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any) => Reply; tagOpen?: boolean } = {}) {
+function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any) => Reply; tagOpen?: boolean; openTotal?: number } = {}) {
   const calls: Call[] = [];
   let unit = unitRow();
   const routes: Record<string, (body: any) => Reply> = {
@@ -88,7 +88,9 @@ function mockApi(over: { role?: string; unit?: () => UnitRow; patch?: (body: any
     'GET /api/unit-types/six_axle_road': () => ({ body: drawing }),
     'GET /api/unit-types/six_axle_road/layout/short_hood': () => ({ body: unitLayout(drawing, 'short_hood') }),
     'GET /api/unit-types/six_axle_road/layout/long_hood': () => ({ body: unitLayout(drawing, 'long_hood') }),
-    'GET /api/repairs': () => ({ body: { items: [queueItem(FINDING, 'Front left uncoupling lever', 'federal'), queueItem(OLD_FINDING, '#6 traction motor', 'shop')] } }),
+    'GET /api/repairs': () => ({
+      body: { items: [queueItem(FINDING, 'Front left uncoupling lever', 'federal'), queueItem(OLD_FINDING, '#6 traction motor', 'shop')], total: over.openTotal ?? 2, nextCursor: over.openTotal ? 'next' : null, assignees: [], toVerify: 0, tagsToClear: [] },
+    }),
     [`GET /api/findings/${FINDING}`]: () => ({
       body: { id: FINDING, label: 'Front left uncoupling lever', partLabel: 'Front left uncoupling lever', partId: 'pl-uncoupling_lever_sh_my', view: 'plan', body: LEVER, frontEnd: 'short_hood', defectLabel: 'Bent', weight: 'federal', rule: null, state: 'open', note: null, createdByName: 'Dana Okafor', createdAt: '2026-11-30T13:21:00Z', version: 1 },
     }),
@@ -255,6 +257,20 @@ describe('unit page', () => {
     const note = await screen.findByTestId('pinned-other-end');
     expect(note).toHaveTextContent('Pinned when the F was on the long hood. With the F on the short hood this part is “#1 traction motor”.');
     expect(note.closest('[data-finding]')).toHaveAttribute('data-finding', OLD_FINDING);
+  });
+
+  it('asks the queue for one page of up to 500 findings of this unit, and says when the unit has more than that', async () => {
+    const { calls } = setup({ openTotal: 612 });
+    const more = await screen.findByTestId('open-findings-more');
+    expect(more).toHaveTextContent('Showing 2 of 612 open findings.');
+    expect(within(more).getByRole('link', { name: 'See them all in the repair queue' })).toHaveAttribute('href', `/repairs?unit=${UNIT_ID}`);
+    expect(calls.filter((c) => c.path.startsWith('/api/repairs')).map((c) => c.path)).toEqual([`/api/repairs?unit=${UNIT_ID}&limit=500`]);
+  });
+
+  it('says nothing more when every open finding of the unit is listed', async () => {
+    setup();
+    await screen.findByRole('link', { name: '#6 traction motor' });
+    expect(screen.queryByTestId('open-findings-more')).toBeNull();
   });
 
   it('lists the history newest first, folds a signed inspection’s start into it, and links to the finding and record', async () => {

@@ -1,5 +1,5 @@
 import { queryOptions } from '@tanstack/react-query';
-import type { QueueItem } from '../../../../shared/api/repairs';
+import { QUEUE_PAGE_MAX, type QueuePage } from '../../../../shared/api/repairs';
 import type { FrontEnd, ViewKey } from '../../../../shared/domain/frames';
 import type { FindingState, FindingWeight } from '../../../../shared/domain/states';
 import { api } from '../../../lib/api-client';
@@ -24,11 +24,14 @@ export interface FindingPinDetail {
   version: number;
 }
 
-/** Open, in repair and repaired findings of one unit (the repair queue filtered to it). */
+/**
+ * Open, in repair and repaired findings of one unit (the repair queue filtered to it): one page as large
+ * as the server gives, more than a unit should ever have; `total` says when there are more still.
+ */
 export const openFindingsQuery = (unitId: string) =>
   queryOptions({
     queryKey: unitKeys.openFindings(unitId),
-    queryFn: ({ signal }) => api<{ items: QueueItem[] }>(`/repairs?unit=${encodeURIComponent(unitId)}`, { signal }),
+    queryFn: ({ signal }) => api<QueuePage>(`/repairs?unit=${encodeURIComponent(unitId)}&limit=${QUEUE_PAGE_MAX}`, { signal }),
   });
 
 export const findingQuery = (id: string) =>
