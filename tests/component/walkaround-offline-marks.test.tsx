@@ -31,7 +31,7 @@ vi.mock('../../src/features/drawing', () => ({
 const { WalkScreen } = await import('../../src/features/walkaround/components/walk-screen');
 const { OfflinePanel, OfflineSync } = await import('../../src/features/walkaround/offline/offline-panel');
 const { SignScreen } = await import('../../src/features/walkaround/components/sign-screen');
-const { offlineQueue } = await import('../../src/features/walkaround/offline/sync');
+const { offlineQueue, withQueued } = await import('../../src/features/walkaround/offline/sync');
 
 const drawing = parseDrawing(readFileSync('diagrams/four_axle_road.svg', 'utf8'), 'four_axle_road.svg');
 const routine = defaultRoutine(drawing);
@@ -215,6 +215,19 @@ describe('signing with changes still on the device', () => {
     await act(() => offlineQueue.flush({ postFinding: async () => ({ id: 'x' }), uploadPhoto: async () => ({}), postCoverage: async () => ({}) }));
     expect(screen.queryByTestId('sign-waiting')).toBeNull();
     expect(sign).toBeEnabled();
+  });
+});
+
+describe('the record as shown', () => {
+  it('lays waiting marks over an open inspection, and never over a signed record', async () => {
+    const part = routine.areas[0].instanceIds[0];
+    await offlineQueue.enqueueMark({ key: 'shown-1', inspectionId: ID, body: { instanceIds: [part], state: 'passed' }, preview: { parts: ['x'], area: null } });
+    const open = withQueued(inspection([]) as never);
+    expect(open.items).toEqual([{ instanceId: part, state: 'passed', reason: null, pending: true }]);
+    expect(open.coverage.passed).toBe(1);
+    const signed = { ...inspection([]), status: 'signed' as const, signedAt: '2026-03-02T15:00:00Z' };
+    expect(withQueued(signed as never)).toBe(signed);
+    await offlineQueue.flush({ postFinding: async () => ({ id: 'x' }), uploadPhoto: async () => ({}), postCoverage: async () => ({}) });
   });
 });
 

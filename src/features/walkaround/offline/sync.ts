@@ -65,6 +65,8 @@ type Item = ClientInspection['items'][number];
  * whatever is marked on it).
  */
 export function withQueued(insp: ClientInspection, state: QueueState = offlineQueue.snapshot()): ClientInspection {
+  // A signed record is shown as it was signed: what still waits for it will be refused, not added.
+  if (insp.status === 'signed') return insp;
   const mine = state.pending.filter((q) => q.inspectionId === insp.id && !(isFinding(q) && q.findingId));
   const base = insp.findings.filter((f) => !f.id.startsWith('queued-'));
   if (mine.length === 0 && base.length === insp.findings.length) return insp;
