@@ -9,6 +9,8 @@ export type ErrorCode =
   | 'not_found'
   | 'conflict'
   | 'stale'
+  /** The same Idempotency-Key is being answered right now: retry in a moment. */
+  | 'in_progress'
   | 'check_passed'
   | 'too_large'
   | 'unsupported_media_type'
@@ -24,6 +26,7 @@ const STATUS: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   stale: 409,
+  in_progress: 409,
   check_passed: 409,
   too_large: 413,
   unsupported_media_type: 415,

@@ -32,11 +32,11 @@ export function idempotency(db: Db): RequestHandler {
           sql`select method, path, status, response from idempotency_keys where person_id = ${personId} and key = ${key}`,
         );
         const p = prior.rows[0];
-        if (!p) return next(new AppError('conflict', 'Retry the request'));
+        if (!p) return next(new AppError('in_progress', 'Retry the request'));
         if (p.method !== req.method || p.path !== path) {
           return next(new AppError('conflict', 'This Idempotency-Key was already used for another request'));
         }
-        if (p.status === 0) return next(new AppError('conflict', 'The same request is still being processed; retry in a moment'));
+        if (p.status === 0) return next(new AppError('in_progress', 'The same request is still being processed; retry in a moment'));
         res.setHeader('Idempotent-Replayed', 'true');
         if (p.status === 204) return void res.status(204).end();
         return void res.status(p.status).json(p.response);

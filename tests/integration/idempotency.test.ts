@@ -18,6 +18,8 @@ describe('Idempotency-Key on state-changing routes', () => {
     ]);
     // One ran; the racing copy was either told to retry (409 in progress) or got the same answer.
     expect([a.status, b.status]).toContain(201);
+    // The racing copy, when told to wait, says so with its own code, which offline clients retry.
+    for (const r of [a, b]) if (r.status === 409) expect(r.body.error.code).toBe('in_progress');
     const c = await admin.post('/api/people', body, { 'idempotency-key': 'create-retry-me-01' });
     expect(c.status).toBe(201);
     expect(c.headers.get('idempotent-replayed')).toBe('true');
@@ -29,6 +31,7 @@ describe('Idempotency-Key on state-changing routes', () => {
     const admin = await t.as('admin');
     const other = await admin.req('PATCH', '/api/settings', { digestHour: 7 }, { 'idempotency-key': 'create-retry-me-01' });
     expect(other.status).toBe(409);
+    expect(other.body.error.code).toBe('conflict');
     expect(other.body.error.message).toMatch(/another request/);
     const bad = await admin.req('PATCH', '/api/settings', { digestHour: 7 }, { 'idempotency-key': 'no spaces allowed!' });
     expect(bad.status).toBe(400);

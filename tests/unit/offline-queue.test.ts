@@ -277,7 +277,8 @@ describe('coverage marks in the same queue', () => {
   });
 
   it("the idempotency layer's 409 for a copy still running is retried, not refused", () => {
-    expect(isPermanent({ status: 409, code: 'conflict', message: 'The same request is still being processed; retry in a moment' })).toBe(false);
+    expect(isPermanent({ status: 409, code: 'in_progress', message: 'The same request is still being processed; retry in a moment' })).toBe(false);
+    expect(isPermanent({ status: 409, code: 'conflict', message: 'This record was signed meanwhile' })).toBe(true);
     expect(isPermanent({ status: 409, code: 'conflict', message: 'This Idempotency-Key was already used for another request' })).toBe(true);
   });
 

@@ -107,7 +107,7 @@ const isSendError = (e: unknown): e is SendError =>
  * lost, retried at once): the first copy finishes, and the retry then gets its answer.
  */
 export function isPermanent(e: SendError) {
-  if (e.status === 409 && e.code === 'conflict' && /still being processed|^Retry the request/i.test(e.message)) return false;
+  if (e.status === 409 && e.code === 'in_progress') return false;
   return e.status >= 400 && e.status < 500 && e.status !== 401 && e.status !== 408 && e.status !== 429;
 }
 
