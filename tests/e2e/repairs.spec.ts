@@ -39,7 +39,14 @@ interface UnitRow {
 /** A six-axle unit in service with no open federal finding, so its tag can be cleared once ours is repaired. */
 async function pickUnit(api: APIRequestContext): Promise<UnitRow> {
   const units = (await ok<{ items: UnitRow[] }>(await api.get('/api/units'))).items;
-  const federal = (await ok<{ items: { unitId: string; state: string }[] }>(await api.get('/api/repairs?weight=federal'))).items;
+  // The queue comes a page at a time: follow it to the end.
+  const federal: { unitId: string; state: string }[] = [];
+  let cursor: string | null = null;
+  do {
+    const page: { items: { unitId: string; state: string }[]; nextCursor: string | null } = await ok(await api.get(`/api/repairs?weight=federal&limit=500${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`));
+    federal.push(...page.items);
+    cursor = page.nextCursor;
+  } while (cursor);
   const busy = new Set(federal.filter((f) => f.state === 'open' || f.state === 'in_repair').map((f) => f.unitId));
   const u = units.find((x) => x.unitTypeKey === 'six_axle_road' && x.serviceState === 'in_service' && !x.nonComplying && !busy.has(x.id));
   expect(u, 'a six-axle unit without open federal findings').toBeTruthy();
@@ -66,6 +73,15 @@ test('foreman assigns and repairs, inspector verifies, the unit turns compliant 
   await expect(fm.page.getByRole('heading', { level: 1, name: 'Repair queue' })).toBeVisible();
   const firstRow = fm.page.getByTestId('queue-row').first();
   await expect(firstRow).toHaveAttribute('data-nc', 'true');
+  await expect(fm.page.getByText(/^(Showing [\d,]+ of [\d,]+ findings|[\d,]+ findings?) · non-complying units first$/)).toBeVisible();
+  // Sorting goes to the server and into the address; non-complying units stay on top.
+  const sorted = fm.page.waitForResponse((r) => r.url().includes('/api/repairs?sort=age.desc') && r.ok());
+  await fm.page.getByRole('button', { name: /^Found/ }).click();
+  await sorted;
+  await expect(fm.page).toHaveURL(/[?&]sort=age\.desc/);
+  await expect(fm.page.getByRole('columnheader', { name: /Found/ })).toHaveAttribute('aria-sort', 'descending');
+  await expect(firstRow).toHaveAttribute('data-nc', 'true');
+  await fm.page.screenshot({ path: `${SHOTS}/repairs-queue-sorted-1024.png` });
   await fm.page.getByLabel('Unit', { exact: true }).selectOption({ label: unit.roadNumber });
   const link = fm.page.locator(`a[href="/repairs/findings/${finding.id}"]`);
   await expect(link).toBeVisible();
