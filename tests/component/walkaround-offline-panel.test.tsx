@@ -9,7 +9,7 @@ vi.mock('idb-keyval', () => ({
 }));
 
 const { OfflinePanel } = await import('../../src/features/walkaround/offline/offline-panel');
-const { offlineQueue, queueFinding, startOfflineSync } = await import('../../src/features/walkaround/offline/sync');
+const { flushNow, offlineQueue, queueFinding, startOfflineSync } = await import('../../src/features/walkaround/offline/sync');
 const { QueryClient } = await import('@tanstack/react-query');
 
 const finding = (n: number) => ({
@@ -21,6 +21,35 @@ const finding = (n: number) => ({
 
 describe('offline panel', () => {
   beforeEach(() => mem.clear());
+
+  it('says the session has ended instead of retrying, keeps the work, and sends it once signed in again', async () => {
+    const { MemoryRouter } = await import('react-router-dom');
+    render(
+      <MemoryRouter>
+        <OfflinePanel />
+      </MemoryRouter>,
+    );
+    const noPhoto = { ...finding(7), photos: [] };
+    await act(() => offlineQueue.enqueue(noPhoto));
+    const answers: Response[] = [new Response(JSON.stringify({ error: { code: 'unauthenticated', message: 'Sign in first' } }), { status: 401, headers: { 'content-type': 'application/json' } })];
+    const fetchMock = vi.fn(async () => answers.shift() ?? new Response(JSON.stringify({ id: 'f-7' }), { status: 201, headers: { 'content-type': 'application/json' } }));
+    vi.stubGlobal('fetch', fetchMock);
+    try {
+      await act(() => flushNow());
+      const line = screen.getByTestId('offline-signed-out');
+      expect(line.textContent).toMatch(/session has ended/);
+      expect(within(line).getByRole('link', { name: 'sign in again' }).getAttribute('href')).toBe('/sign-in');
+      expect(screen.getByTestId('offline-waiting').textContent).toContain('Waiting to send: 1 finding');
+      expect(screen.queryByTestId('offline-failed')).toBeNull();
+      // Signed in again: the next send carries it, once, and the panel goes.
+      await act(() => flushNow());
+      expect(fetchMock).toHaveBeenCalledTimes(2);
+      expect(screen.queryByTestId('offline-waiting')).toBeNull();
+      expect(screen.queryByTestId('offline-signed-out')).toBeNull();
+    } finally {
+      vi.unstubAllGlobals();
+    }
+  });
 
   it('lists what waits, then shows a refusal with the server message until dismissed; the note can be copied', async () => {
     render(<OfflinePanel />);

@@ -15,7 +15,7 @@ function entry(n: number): NewFinding {
   };
 }
 
-type Mode = 'ok' | 'offline' | '503';
+type Mode = 'ok' | 'offline' | '503' | '401';
 
 /** A server whose answers the test sets; it counts the requests in flight at once. */
 function server() {
@@ -30,6 +30,7 @@ function server() {
       if (s.hold) await s.hold;
       if (mode === 'offline') throw { status: 0, code: 'offline', message: 'No connection' };
       if (mode === '503') throw { status: 503, code: 'http_503', message: 'busy' };
+      if (mode === '401') throw { status: 401, code: 'unauthenticated', message: 'Sign in first' };
     } finally {
       s.inFlight--;
     }
@@ -55,6 +56,30 @@ afterEach(() => {
 });
 
 describe('send scheduler', () => {
+  it('stops trying when the session has ended (401), keeps everything, and sends it all once signed in again', async () => {
+    const q = new OfflineQueue(createMemoryStore());
+    const { s, sender } = server();
+    const results: string[] = [];
+    const sch = new SendScheduler(q, sender, { onFlushed: (r) => results.push(r.outcome) });
+    await q.enqueue(entry(1));
+    await q.enqueue(entry(2));
+    s.mode = '401';
+    await sch.sendNow();
+    // 401 is neither a refusal of the finding (it is not dropped to "could not be sent") nor worth a timer.
+    expect(results).toEqual(['signed_out']);
+    expect(q.snapshot().pending.map((p) => p.body.idempotencyKey)).toEqual(['key-1', 'key-2']);
+    expect(q.snapshot().failed).toEqual([]);
+    expect(sch.nextDelay).toBeNull();
+    await vi.advanceTimersByTimeAsync(120_000);
+    expect(s.log).toEqual(['post key-1']);
+    // Signed in again: the app starts the queue, which sends both in order.
+    s.mode = 'ok';
+    await sch.sendNow();
+    expect(results.at(-1)).toBe('done');
+    expect(s.log).toEqual(['post key-1', 'post key-1', 'post key-2']);
+    expect(q.snapshot().pending).toEqual([]);
+  });
+
   it('backs off 2 s, 4 s, 8 s while the server fails, and sends at once when the connection returns, the backoff started again', async () => {
     const q = new OfflineQueue(createMemoryStore());
     const { s, sender } = server();

@@ -1,7 +1,8 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { entryTitle, isFinding, isMark, noteText, type FailedEntry, type QueuedEntry } from './queue';
-import { flushNow, keepRefusedAsNote, offlineQueue, startOfflineSync, useOfflineQueue } from './sync';
+import { Link } from 'react-router-dom';
+import { flushNow, keepRefusedAsNote, offlineQueue, startOfflineSync, useOfflineQueue, useQueueSignedOut } from './sync';
 
 /** Starts the queue's sending for the walkaround screens (app start, connection back, page shown again, retry timer). */
 export function OfflineSync() {
@@ -89,6 +90,7 @@ function WaitingRow({ q }: { q: QueuedEntry }) {
 /** What is waiting to be sent, and what the server refused (never dropped without the inspector seeing it). */
 export function OfflinePanel() {
   const { pending, failed } = useOfflineQueue();
+  const signedOut = useQueueSignedOut();
   if (pending.length === 0 && failed.length === 0) return null;
   return (
     <div className="no-print space-y-3">
@@ -102,7 +104,17 @@ export function OfflinePanel() {
               Send now
             </button>
           </div>
-          <p>Kept on this device; sent in the order made, the moment the connection returns. Each is stored once, however often it is sent.</p>
+          {signedOut ? (
+            <p className="font-bold" role="alert" data-testid="offline-signed-out">
+              Your session has ended, so these cannot be sent. They stay on this device:{' '}
+              <Link className="underline" to="/sign-in">
+                sign in again
+              </Link>{' '}
+              as the same inspector and they are sent at once.
+            </p>
+          ) : (
+            <p>Kept on this device; sent in the order made, the moment the connection returns. Each is stored once, however often it is sent.</p>
+          )}
           <ol className="list-decimal pl-6">
             {pending.slice(0, SHOWN).map((q) => (
               <WaitingRow key={q.key} q={q} />

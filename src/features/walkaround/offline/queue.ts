@@ -94,7 +94,8 @@ export interface QueueSender {
   postCoverage(inspectionId: string, body: CoverageMarkBody, idempotencyKey: string): Promise<unknown>;
 }
 
-export type FlushResult = { outcome: 'done' | 'offline' | 'retry'; sent: string[]; failed: string[] };
+/** `signed_out`: the session ended (401); nothing more is tried until the inspector signs in again. */
+export type FlushResult = { outcome: 'done' | 'offline' | 'retry' | 'signed_out'; sent: string[]; failed: string[] };
 
 const isSendError = (e: unknown): e is SendError =>
   typeof e === 'object' && e !== null && typeof (e as SendError).status === 'number' && typeof (e as SendError).message === 'string';
@@ -251,6 +252,7 @@ export class OfflineQueue {
       } catch (e) {
         const err: SendError = isSendError(e) ? e : { status: -1, code: 'unknown', message: String((e as Error)?.message ?? e) };
         if (err.status === 0) return { outcome: 'offline', sent, failed };
+        if (err.status === 401) return { outcome: 'signed_out', sent, failed };
         if (!isPermanent(err)) return { outcome: 'retry', sent, failed };
         const current = this.state.pending.find((p) => p.key === head.key) ?? head;
         await this.change((s) => ({

@@ -83,7 +83,8 @@ export class SendScheduler {
       this.opts.onFlushed?.(last, before);
     } while (this.again && !this.stopped);
     if (this.stopped) return;
-    if (last.outcome === 'done') {
+    // Signed out: retrying cannot help; signing in again starts the app, which sends at once.
+    if (last.outcome === 'done' || last.outcome === 'signed_out') {
       this.attempt = 0;
       return;
     }

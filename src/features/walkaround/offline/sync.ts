@@ -97,8 +97,25 @@ function showQueued(qc: QueryClient | null, inspectionId: string, s: QueueState 
   qc?.setQueryData<ClientInspection>(inspectionKey(inspectionId), (i) => i && withQueued(i, s));
 }
 
+// Whether the last send found the session ended: the panel then asks the inspector to sign in again.
+let signedOut = false;
+const signedOutListeners = new Set<() => void>();
+function setSignedOut(v: boolean) {
+  if (v === signedOut) return;
+  signedOut = v;
+  for (const l of signedOutListeners) l();
+}
+export const useQueueSignedOut = () =>
+  useSyncExternalStore(
+    (cb) => (signedOutListeners.add(cb), () => void signedOutListeners.delete(cb)),
+    () => signedOut,
+    () => signedOut,
+  );
+
 const scheduler = new SendScheduler(offlineQueue, sender, {
   onFlushed: (r, before) => {
+    if (r.outcome === 'signed_out') setSignedOut(true);
+    else if (r.outcome === 'done' || r.sent.length) setSignedOut(false);
     const qc = client;
     if (!qc || (!r.sent.length && !r.failed.length)) return;
     // The server adds what only it knows (labels, coverage, the tag); the rest still waiting is laid over it again.
