@@ -14,6 +14,8 @@ const DB = 'hoodline_load';
 const PORT = Number(process.env.BENCH_PORT ?? 3177);
 const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
+// Server processes sharing the port (WEB_CONCURRENCY), as production runs one per core.
+const PROCESSES = Number(process.env.BENCH_PROCESSES ?? 1);
 const url = `postgres://postgres@127.0.0.1:${PGPORT}/${DB}`;
 
 async function main() {
@@ -29,12 +31,13 @@ async function main() {
 
   // The production server: migrates and seeds the demo railroad (with its history) on start.
   const server = spawn(process.execPath, [...(process.env.BENCH_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE}`] : []), '--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: url, PORT: String(PORT), SERVE_DIST: '1', SEED_DEMO: '1', FAKE_SMTP: '0', WORKERS: '0', WRITE_RATE_LIMIT: '1000000', SESSION_SECRET: 'bench-only-secret-0123456789' },
+    env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: url, PORT: String(PORT), SERVE_DIST: '1', SEED_DEMO: '1', FAKE_SMTP: '0', WORKERS: '0', WEB_CONCURRENCY: String(PROCESSES), WRITE_RATE_LIMIT: '1000000', SESSION_SECRET: 'bench-only-secret-0123456789' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   await new Promise<void>((resolve, reject) => {
     const t = setTimeout(() => reject(new Error('server did not start')), 120_000);
-    server.stdout!.on('data', (d) => String(d).includes('listening') && (clearTimeout(t), resolve()));
+    let up = 0;
+    server.stdout!.on('data', (d) => (up += String(d).split('listening').length - 1) >= PROCESSES && (clearTimeout(t), resolve()));
     server.on('exit', (c) => reject(new Error(`server exited ${c}`)));
   });
   const base = `http://127.0.0.1:${PORT}`;
@@ -85,7 +88,7 @@ async function main() {
       ],
     });
     const errors = result.errors + result.timeouts + result.non2xx;
-    console.log(`\nbench:load — ${CONNECTIONS} connections, ${DURATION} s, mixed reads and finding writes (1 write in 5), loopback, production build`);
+    console.log(`\nbench:load — ${CONNECTIONS} connections, ${DURATION} s, mixed reads and finding writes (1 write in 5), loopback, production build, ${PROCESSES} server process${PROCESSES === 1 ? '' : 'es'}`);
     console.log(`requests/s: ${result.requests.average.toFixed(0)}  (total ${result.requests.total})`);
     console.log(`latency p50: ${result.latency.p50} ms  p99: ${result.latency.p99} ms  (goal p99 < 100 ms)`);
     console.log(`errors: ${errors} (connection ${result.errors}, timeouts ${result.timeouts}, non-2xx ${result.non2xx})  (goal 0)`);

@@ -36,6 +36,8 @@ const EnvSchema = z.object({
   DIAGRAMS_DIR: z.string().default('diagrams'),
   /** How long a signed-in person's row is reused between requests (other processes see a role change this late). */
   PERSON_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(2000),
+  /** Server processes sharing the port on this machine (node:cluster); one per core is usual. */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
   /** Run background workers (outbox, digest) in this process. */
   WORKERS: bool.default(true),
 });

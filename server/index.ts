@@ -1,3 +1,4 @@
+import cluster from 'node:cluster';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -61,15 +62,48 @@ export async function startServer(config: Config, opts: { seed: boolean; log?: (
 const isMain = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
 if (isMain) {
   const config = loadConfig();
-  startServer(config, { seed: process.env.SEED_DEMO === '1' })
-    .then((r) => {
-      console.log(`Hoodline API listening on ${r.url}`);
+  const fail = (e: unknown) => {
+    console.error(`Hoodline did not start: ${e instanceof Error ? e.message : e}`);
+    process.exit(1);
+  };
+  const serve = (c: Config, seed: boolean) =>
+    startServer(c, { seed }).then((r) => {
+      console.log(`Hoodline API listening on ${r.url}${cluster.isWorker ? ` (process ${process.env.HOODLINE_PROCESS} of ${config.WEB_CONCURRENCY}, pid ${process.pid})` : ''}`);
       const shut = () => void r.stop().then(() => process.exit(0));
       process.once('SIGINT', shut);
       process.once('SIGTERM', shut);
-    })
-    .catch((e) => {
-      console.error(`Hoodline did not start: ${e instanceof Error ? e.message : e}`);
-      process.exit(1);
     });
+  if (config.WEB_CONCURRENCY <= 1) serve(config, process.env.SEED_DEMO === '1').catch(fail);
+  else if (cluster.isPrimary) {
+    // Several processes share the port (node:cluster); the first migrates and seeds before the others start,
+    // and only it runs the fake SMTP server, so dev mail lands in one mailbox.
+    const numbers = new Map<number, number>();
+    const fork = (n: number) => {
+      const w = cluster.fork({ HOODLINE_PROCESS: String(n) });
+      numbers.set(w.id, n);
+      return w;
+    };
+    let stopping = false;
+    const first = fork(1);
+    first.once('listening', () => {
+      for (let i = 2; i <= config.WEB_CONCURRENCY; i++) fork(i);
+    });
+    cluster.on('exit', (w, code) => {
+      if (stopping) return;
+      console.error(`Hoodline process ${w.process.pid} exited (${code}); starting another`);
+      fork(numbers.get(w.id) ?? 2);
+    });
+    const shut = () => {
+      stopping = true;
+      for (const w of Object.values(cluster.workers ?? {})) w?.process.kill('SIGTERM');
+      let left = Object.keys(cluster.workers ?? {}).length;
+      if (!left) process.exit(0);
+      cluster.on('exit', () => --left <= 0 && process.exit(0));
+    };
+    process.once('SIGINT', shut);
+    process.once('SIGTERM', shut);
+  } else {
+    const first = process.env.HOODLINE_PROCESS === '1';
+    serve({ ...config, FAKE_SMTP: first && config.FAKE_SMTP }, first && process.env.SEED_DEMO === '1').catch(fail);
+  }
 }
