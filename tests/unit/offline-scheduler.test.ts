@@ -67,7 +67,7 @@ describe('send scheduler', () => {
     await sch.sendNow();
     // 401 is neither a refusal of the finding (it is not dropped to "could not be sent") nor worth a timer.
     expect(results).toEqual(['signed_out']);
-    expect(q.snapshot().pending.map((p) => p.body.idempotencyKey)).toEqual(['key-1', 'key-2']);
+    expect(q.snapshot().pending.map((p) => p.key)).toEqual(['key-1', 'key-2']);
     expect(q.snapshot().failed).toEqual([]);
     expect(sch.nextDelay).toBeNull();
     await vi.advanceTimersByTimeAsync(120_000);
