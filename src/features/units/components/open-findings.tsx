@@ -1,9 +1,8 @@
-import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import type { QueueItem } from '../../../../shared/api/repairs';
 import type { FrontEnd } from '../../../../shared/domain/frames';
 import type { UnitLayout } from '../../../../shared/layout/unit-layout';
-import { openFindingsQuery, type FindingPinDetail } from '../api/findings';
+import type { FindingPinDetail } from '../api/findings';
 import { FINDING_STATE_WORDS, HOOD_WORDS, formatWhen } from '../lib/format';
 import { WeightMark } from './flags';
 
@@ -13,6 +12,7 @@ import { WeightMark } from './flags';
  */
 export function OpenFindings({
   items,
+  total = items.length,
   details,
   frontEnd,
   layout,
@@ -20,16 +20,14 @@ export function OpenFindings({
   onShow,
 }: {
   items: readonly QueueItem[];
+  /** How many open findings the unit has in all (the page holds at most 500). */
+  total?: number;
   details: ReadonlyMap<string, FindingPinDetail>;
   frontEnd: FrontEnd;
   layout?: UnitLayout;
   timeZone?: string;
   onShow(f: FindingPinDetail): void;
 }) {
-  // How many the unit has in all, read from the cached page the items came from (at most 500 a page);
-  // reading it must not fetch the page again.
-  const unitId = items[0]?.unitId ?? '';
-  const total = useQuery({ ...openFindingsQuery(unitId), enabled: !!unitId, refetchOnMount: false }).data?.total ?? items.length;
   return (
     <section aria-labelledby="open-findings-title" className="card space-y-2 p-3">
       <h2 id="open-findings-title" className="text-xl font-bold">
@@ -79,7 +77,7 @@ export function OpenFindings({
       {total > items.length && (
         <p className="font-bold" data-testid="open-findings-more">
           Showing {items.length.toLocaleString('en-US')} of {total.toLocaleString('en-US')} open findings.{' '}
-          <Link to={`/repairs?unit=${encodeURIComponent(unitId)}`} className="inline-flex min-h-12 items-center underline decoration-2 underline-offset-4">
+          <Link to={`/repairs?unit=${encodeURIComponent(items[0]?.unitId ?? '')}`} className="inline-flex min-h-12 items-center underline decoration-2 underline-offset-4">
             See them all in the repair queue
           </Link>
         </p>

@@ -96,6 +96,7 @@ function UnitPageFor({ id }: { id: string }) {
           ) : (
             <OpenFindings
               items={open.data?.items ?? []}
+              total={open.data?.total}
               details={detailById}
               frontEnd={u.frontEnd}
               layout={layout.data}
