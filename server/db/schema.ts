@@ -9,6 +9,7 @@ import {
   integer,
   json,
   jsonb,
+  numeric,
   pgTable,
   primaryKey,
   smallint,
@@ -301,6 +302,67 @@ export const findings = pgTable(
     index('findings_hot_spots_kinds').on(t.unitTypeKey, t.partKind, t.createdAt, t.state, t.defectType, t.weight, t.inspectionId),
     uniqueIndex('findings_idem').on(t.createdBy, t.idempotencyKey),
   ],
+);
+
+/*
+ * The hot spots summary: the non-voided findings counted per unit type and civil month (railroad zone),
+ * kept by statement triggers on findings in the writing transaction and rebuilt when the zone, the
+ * repeat window or a unit type's width changes (drizzle/0005_hot_spots_summary.sql). The screen reads
+ * whole months from here and only the partial months at the ends of its range from findings.
+ */
+export const hotSpotsByLabel = pgTable(
+  'hot_spots_by_label',
+  {
+    unitTypeKey: text('unit_type_key').notNull(),
+    month: date('month').notNull(),
+    label: text('label').notNull(),
+    partKind: text('part_kind').notNull(),
+    partLabel: text('part_label').notNull(),
+    findings: integer('findings').notNull(),
+    /** Findings that are repeats under the current repeat window. */
+    repeats: integer('repeats').notNull(),
+    /** Exact sums of the pins' front-relative positions (numeric, so adding and removing never drifts). */
+    sumAlong: numeric('sum_along').notNull(),
+    sumLeft: numeric('sum_left').notNull(),
+  },
+  (t) => [primaryKey({ name: 'hot_spots_by_label_pk', columns: [t.unitTypeKey, t.month, t.label, t.partKind, t.partLabel] })],
+);
+
+/** Pins per cell of the hot spots grid (12 in cells; clamped to the drawing when read). */
+export const hotSpotsByCell = pgTable(
+  'hot_spots_by_cell',
+  {
+    unitTypeKey: text('unit_type_key').notNull(),
+    month: date('month').notNull(),
+    col: integer('col').notNull(),
+    row: integer('row').notNull(),
+    findings: integer('findings').notNull(),
+  },
+  (t) => [primaryKey({ name: 'hot_spots_by_cell_pk', columns: [t.unitTypeKey, t.month, t.col, t.row] })],
+);
+
+export const hotSpotsByUnit = pgTable(
+  'hot_spots_by_unit',
+  {
+    unitTypeKey: text('unit_type_key').notNull(),
+    month: date('month').notNull(),
+    unitId: uuid('unit_id').notNull(),
+    findings: integer('findings').notNull(),
+    repeats: integer('repeats').notNull(),
+  },
+  (t) => [primaryKey({ name: 'hot_spots_by_unit_pk', columns: [t.unitTypeKey, t.month, t.unitId] })],
+);
+
+/** The months in which a unit has findings on a part as named: units affected are distinct, not additive. */
+export const hotSpotsLabelUnits = pgTable(
+  'hot_spots_label_units',
+  {
+    unitTypeKey: text('unit_type_key').notNull(),
+    label: text('label').notNull(),
+    unitId: uuid('unit_id').notNull(),
+    months: date('months').array().notNull(),
+  },
+  (t) => [primaryKey({ name: 'hot_spots_label_units_pk', columns: [t.unitTypeKey, t.label, t.unitId] })],
 );
 
 export const photos = pgTable(

@@ -273,6 +273,12 @@ export const REFRESH_ALL_PRIOR_REPAIR_DAYS = `
    where w.kind = 1 and w.id = f.id
      and f.prior_repair_days is distinct from (f.created_at at time zone z.tz)::date - (w.last_repair at time zone z.tz)::date`;
 
+/**
+ * The hot spots summary (drizzle/0005) is kept by triggers on findings; a bulk load that turns
+ * triggers off (session_replication_role = replica) fills it afterwards with this, from findings.
+ */
+export const REBUILD_HOT_SPOTS_SUMMARY = `select hot_spots_summary_rebuild()`;
+
 export const priorRepairs = (db: DbOrTx) => {
   const self = {
     /**
