@@ -7,7 +7,9 @@
  *   - the hot spots screen for a typical query (one unit type, the last 12 months: the screen's default),
  *   - the same for the last 90 days,
  *   - a bare `select count(*) from findings`,
- * each as the median of several runs after a warm-up, and prints both and their ratio.
+ * each as the median of several runs after a warm-up, and prints both and their ratio. The screen reads
+ * whole months from the hot spots summary (drizzle/0005); the bench also times the same screen computed
+ * from findings alone (the statement filtered queries use) and checks that both give the same answer.
  *
  * Flags: --reuse (keep an already seeded bench database), --runs=N (default 7),
  *        --proposed-index (also time with the covering index proposed to the lead, created in the
@@ -19,6 +21,8 @@ import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
 import { createDb, migrateDb } from '../server/db/client';
 import { loadDrawingsFromDir } from '../server/drawings/load';
+import { hotSpotsService } from '../server/modules/hot-spots/service';
+import { HotSpotsQuery } from '../shared/api/hot-spots';
 import { BENCH_ENGINEER, BENCH_PASSWORD, seedBench, type BenchSize } from './hot-spots-seed';
 
 const PORT = process.env.BENCH_PGPORT ?? '54339';
@@ -122,6 +126,30 @@ async function main() {
     console.log(`  select count(*) from findings (median of ${RUNS}): ${ms(mc)}   [runs: ${c.map((x) => x.toFixed(0)).join(', ')}]`);
     console.log(`  ratio, 12 months / count(*): ${(ma / mc).toFixed(2)}   (goal ≤ 3 and under 1 s: ${ma / mc <= 3 && ma < 1000 ? 'met' : 'not met'})`);
     console.log(`  ratio, 90 days / count(*):   ${(mq / mc).toFixed(2)}   (goal ≤ 3 and under 1 s: ${mq / mc <= 3 && mq < 1000 ? 'met' : 'not met'})`);
+
+    // The same screens from findings alone, in process (no HTTP), and whether they agree with the API's.
+    const raw = hotSpotsService(pool, drawings, { summary: false });
+    // The query as the route parses it, so both answers are built from the same input.
+    const screen = (path: string) => raw.screen(HotSpotsQuery.parse(Object.fromEntries(new globalThis.URL(path, base).searchParams)));
+    const r: number[] = [];
+    for (let i = 0; i < Math.min(RUNS, 3); i++) {
+      const t = performance.now();
+      await screen(year);
+      r.push(performance.now() - t);
+    }
+    console.log(`  from findings alone, last 12 months (median of ${r.length}): ${ms(median(r))}   [runs: ${r.map((x) => x.toFixed(0)).join(', ')}]`);
+    // Counts must agree exactly; mean positions to float precision (the raw statement adds float8 in its own order).
+    type Row = { along: number; left: number };
+    const rows = (x: unknown) => (x as { rows: Row[] }).rows;
+    const withoutPositions = (x: unknown) => JSON.stringify({ ...(x as object), rows: rows(x).map((r) => ({ ...r, along: 0, left: 0 })) });
+    for (const [name, path] of [['12 months', year], ['90 days', quarter]] as const) {
+      const a = (await api(path)).body;
+      const b = await screen(path);
+      const gap = Math.max(0, ...rows(a).flatMap((r, i) => [Math.abs(r.along - rows(b)[i].along), Math.abs(r.left - rows(b)[i].left)]));
+      const same = withoutPositions(a) === withoutPositions(b) && gap < 1e-9;
+      console.log(`  ${name}: the API (summary) and findings alone give ${same ? 'the same answer' : 'DIFFERENT answers'} (largest gap in a mean position: ${gap.toExponential(1)} in)`);
+      if (!same) process.exitCode = 1;
+    }
   }
 
   try {

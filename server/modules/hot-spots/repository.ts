@@ -139,15 +139,162 @@ async function inTx<T>(pool: pg.Pool, run: (c: pg.PoolClient) => Promise<T>): Pr
   }
 }
 
-export const hotSpotsRepository = (pool: pg.Pool) => ({
+/**
+ * The screen's closing SELECT, the same for both statements below. Each defines, as CTEs:
+ *   out_rows(label, part_kind, part_label, n, units, r, sa, sl), out_cells(col, row, n),
+ *   out_months(month date, n, r), out_units(unit_id, n, r), out_fleet(type, kind, n).
+ * Counts agree exactly. Mean positions agree to float precision, not to the last bit: the raw statement
+ * adds float8 in its own order, the summary keeps exact numeric sums (no drift under adds and removals).
+ */
+const screenSelect = (p: { type: string; t0: string; t1: string; yards: string | null }) => `
+      select
+        (select json_build_object('key', t.key, 'name', t.name, 'lengthIn', t.length_in, 'widthIn', t.width_in)
+           from unit_types t where t.key = ${p.type}) as "unitType",
+        ${CURRENT},
+        (select coalesce(json_agg(json_build_object('unitTypeKey', e.type, 'inspections', e.n)), '[]')
+           from (select u.unit_type_key as type, count(*)::int as n
+                   from inspections i join units u on u.id = i.unit_id
+                  where i.started_at >= ${p.t0} and i.started_at < ${p.t1}
+                    ${p.yards ? `and (${p.yards} is null or coalesce(i.yard_id, u.yard_id) = any(${p.yards}))` : ''}
+                  group by 1) e) as exposure,
+        (select coalesce(json_agg(json_build_object('unitTypeKey', k.type, 'partKind', k.kind, 'findings', k.n)), '[]') from out_fleet k) as fleet,
+        (select coalesce(json_agg(json_build_object('label', x.label, 'partLabel', x.part_label, 'partKind', x.part_kind,
+                  'findings', x.n, 'units', x.units, 'repeats', x.r, 'along', (x.sa / x.n)::float8, 'left', (x.sl / x.n)::float8)
+                  order by x.n desc, x.label), '[]')
+           from out_rows x) as rows,
+        (select coalesce(json_agg(json_build_object('col', c.col, 'row', c.row, 'count', c.n) order by c.col, c.row), '[]') from out_cells c) as cells,
+        (select coalesce(json_agg(json_build_object('month', to_char(m.month, 'YYYY-MM'), 'findings', m.n, 'repeats', m.r) order by m.month), '[]')
+           from out_months m) as months,
+        (select coalesce(json_agg(json_build_object('unitId', w.unit_id, 'roadNumber', un.road_number, 'frontEnd', un.front_end,
+                  'repeats', w.r, 'findings', w.n) order by w.r desc, un.road_number), '[]')
+           from (select unit_id, r, n from out_units where r > 0 order by r desc, unit_id limit 10) w join units un on un.id = w.unit_id) as "repeatUnits",
+        (select json_build_object('findings', coalesce(sum(n), 0)::int, 'units', count(*)::int, 'repeats', coalesce(sum(r), 0)::int)
+           from out_units) as totals`;
+
+/** Cell size of the summary's grid (hot_spots_by_cell): the screen's default cell. */
+export const SUMMARY_CELL_IN = 12;
+
+/** Can the summary answer this selection? It has no yard, defect type or weight in its keys. */
+export const summaryAnswers = (f: HotSpotFilter, cellIn: number) =>
+  cellIn === SUMMARY_CELL_IN && !f.defectTypes.length && !f.weights.length && !f.yards.length;
+
+/**
+ * The screen from the summary tables (drizzle/0005): whole civil months of the range from the
+ * summary, the partial months at either end from findings (the same index-only range the raw
+ * statement reads). Parameters: $1 unit type, $2 start, $3 end (exclusive), $4 time zone,
+ * $5 repeat window, $6 cell size (SUMMARY_CELL_IN), $7 the other unit types.
+ */
+const SUMMARY_SCREEN = `
+      with
+      -- Whole months: from the first month starting at or after the start to the last ending at or before the end
+      -- (railroad zone, month starts as PostgreSQL places them, as the summary's months are). With none,
+      -- the raw part is the whole range.
+      w as materialized (
+        select m0, m1,
+               case when m0 < m1 then m0::timestamp at time zone $4::text else $3::timestamptz end as t0,
+               case when m0 < m1 then m1::timestamp at time zone $4::text else $3::timestamptz end as t1,
+               array(select generate_series(m0::timestamp, (m1 - 1)::timestamp, interval '1 month')::date) as whole
+          from (select (case when (a at time zone $4::text) >= $2::timestamptz then a else a + interval '1 month' end)::date as m0,
+                       (case when (b at time zone $4::text) <= $3::timestamptz then b else b - interval '1 month' end)::date as m1
+                  from (select date_trunc('month', $2::timestamptz at time zone $4::text) as a,
+                               date_trunc('month', $3::timestamptz at time zone $4::text) as b) x) y
+      ),
+      d as (select ceil(length_in / $6::float8) as cols, ceil(width_in / $6::float8) as rows, width_in / 2 as half from unit_types where key = $1),
+      -- The findings of the partial months (voided findings never count).
+      e as materialized (
+        select f.label, f.unit_id, f.part_kind, f.part_label, f.front_along, f.front_left, f.created_at,
+               coalesce(f.prior_repair_days <= $5::int, false) as rep
+          from findings f
+         where f.unit_type_key = $1 and f.created_at >= $2::timestamptz and f.created_at < (select t0 from w) and f.state <> 'voided'
+        union all
+        select f.label, f.unit_id, f.part_kind, f.part_label, f.front_along, f.front_left, f.created_at,
+               coalesce(f.prior_repair_days <= $5::int, false)
+          from findings f
+         where f.unit_type_key = $1 and f.created_at >= (select t1 from w) and f.created_at < $3::timestamptz and f.state <> 'voided'
+      ),
+      parts as materialized (
+        select label, part_kind, part_label, sum(n)::int as n, sum(r)::int as r, sum(sa) as sa, sum(sl) as sl
+          from (select s.label, s.part_kind, s.part_label, s.findings as n, s.repeats as r, s.sum_along as sa, s.sum_left as sl
+                  from hot_spots_by_label s, w where s.unit_type_key = $1 and s.month >= w.m0 and s.month < w.m1
+                union all
+                select label, part_kind, part_label, count(*), count(*) filter (where rep), sum(front_along)::numeric, sum(front_left)::numeric
+                  from e group by 1, 2, 3) x
+         group by 1, 2, 3 having sum(n) > 0
+      ),
+      lab as (
+        select label, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, sum(r)::int as r, sum(sa) as sa, sum(sl) as sl
+          from parts group by label
+      ),
+      -- Units affected are distinct: the (part, unit) pairs with findings in a whole month, and those of the partial months not among them.
+      pairs as (
+        select s.label, s.unit_id from hot_spots_label_units s, w where s.unit_type_key = $1 and s.months && w.whole
+      ),
+      out_rows as (
+        select x.label, x.part_kind, x.part_label, x.n, x.r, x.sa, x.sl, p.units
+          from lab x
+          join (select label, count(*)::int as units
+                  from (select label, unit_id from pairs
+                        union all
+                        select label, unit_id from (select distinct label, unit_id from e) q
+                         where not exists (select 1 from pairs p where p.label = q.label and p.unit_id = q.unit_id)) z
+                 group by label) p using (label)
+      ),
+      out_units as (
+        select unit_id, sum(n)::int as n, sum(r)::int as r
+          from (select s.unit_id, s.findings as n, s.repeats as r from hot_spots_by_unit s, w
+                 where s.unit_type_key = $1 and s.month >= w.m0 and s.month < w.m1
+                union all
+                select unit_id, count(*), count(*) filter (where rep) from e group by 1) x
+         group by unit_id having sum(n) > 0
+      ),
+      out_months as (
+        select month, sum(n)::int as n, sum(r)::int as r
+          from (select s.month, s.findings as n, s.repeats as r from hot_spots_by_label s, w
+                 where s.unit_type_key = $1 and s.month >= w.m0 and s.month < w.m1
+                union all
+                select date_trunc('month', created_at at time zone $4::text)::date, count(*), count(*) filter (where rep) from e group by 1) x
+         group by month having sum(n) > 0
+      ),
+      out_cells as (
+        select least(greatest(x.col, 0), d.cols - 1)::int as col, least(greatest(x.row, 0), d.rows - 1)::int as row, sum(x.n)::int as n
+          from (select s.col, s.row, s.findings as n from hot_spots_by_cell s, w where s.unit_type_key = $1 and s.month >= w.m0 and s.month < w.m1
+                union all
+                select floor(e.front_along / $6::float8), floor((e.front_left + d.half) / $6::float8), count(*) from e, d group by 1, 2) x, d
+         group by 1, 2 having sum(x.n) > 0
+      ),
+      -- The fleet baseline: every other unit type's findings by part kind, whole months from the summary, partial ones from findings.
+      out_fleet as (
+        select type, kind, sum(n)::int as n
+          from (select s.unit_type_key as type, s.part_kind as kind, s.findings as n from hot_spots_by_label s, w
+                 where s.unit_type_key = any($7::text[]) and s.month >= w.m0 and s.month < w.m1
+                union all
+                select f.unit_type_key, f.part_kind, 1 from findings f
+                 where f.unit_type_key = any($7::text[]) and f.created_at >= $2::timestamptz and f.created_at < (select t0 from w) and f.state <> 'voided'
+                union all
+                select f.unit_type_key, f.part_kind, 1 from findings f
+                 where f.unit_type_key = any($7::text[]) and f.created_at >= (select t1 from w) and f.created_at < $3::timestamptz and f.state <> 'voided'
+                union all
+                select $1, part_kind, n from parts) x
+         group by 1, 2 having sum(n) > 0
+      )
+      ${screenSelect({ type: '$1', t0: '$2::timestamptz', t1: '$3::timestamptz', yards: null })}`;
+
+export const hotSpotsRepository = (pool: pg.Pool, opts: { summary?: boolean } = {}) => ({
   /** Settings the statements need; the service caches them. */
   async settings(): Promise<Settings | null> {
     const r = await pool.query<Settings>(`select time_zone as "timeZone", repeat_window_days as "repeatWindowDays" from railroad_settings where id = 1`);
     return r.rows[0] ?? null;
   },
 
-  /** Everything the screen shows, in one statement. `otherTypes`: the unit types the fleet baseline adds. */
+  /**
+   * Everything the screen shows, in one statement. `otherTypes`: the unit types the fleet baseline adds.
+   * From the summary when it can answer (opts.summary = false forces the raw statement), else from findings.
+   */
   async aggregate(f: HotSpotFilter, cellIn: number, s: Settings, otherTypes: string[]): Promise<Aggregate> {
+    if (opts.summary !== false && summaryAnswers(f, cellIn)) {
+      const values = [f.unitType, f.start, f.end, s.timeZone, s.repeatWindowDays, cellIn, otherTypes];
+      return inTx(pool, async (c) => (await c.query<Aggregate>(SUMMARY_SCREEN, values)).rows[0]);
+    }
     // Index-only passes with no per-row work beyond hashing: the selection once, grouped two ways at
     // once (by part and unit; by grid cell and month), and the other unit types' findings counted by
     // part kind, one index range per (type, kind). Months are found by searching the month starts (no
@@ -188,36 +335,24 @@ export const hotSpotsRepository = (pool: pg.Pool) => ({
       fleet as materialized (
         select k.type, k.kind, (select count(*)::int from findings f where f.unit_type_key = k.type and f.part_kind = k.kind and ${FINDING_FILTERS}) as n
           from kinds k where k.kind is not null
-      )
-      select
-        (select json_build_object('key', t.key, 'name', t.name, 'lengthIn', t.length_in, 'widthIn', t.width_in)
-           from unit_types t where t.key = $1) as "unitType",
-        ${CURRENT},
-        (select coalesce(json_agg(json_build_object('unitTypeKey', e.type, 'inspections', e.n)), '[]')
-           from (select u.unit_type_key as type, count(*)::int as n
-                   from inspections i join units u on u.id = i.unit_id
-                  where i.started_at >= ${T0} and i.started_at < ${T1}
-                    and ($6::uuid[] is null or coalesce(i.yard_id, u.yard_id) = any($6::uuid[]))
-                  group by 1) e) as exposure,
-        (select coalesce(json_agg(json_build_object('unitTypeKey', k.type, 'partKind', k.kind, 'findings', k.n)), '[]')
-           from (select type, kind, n from fleet where n > 0
-                 union all
-                 select $1, part_kind, sum(n)::int from g where by_part group by part_kind) k) as fleet,
-        (select coalesce(json_agg(json_build_object('label', x.label, 'partLabel', x.part_label, 'partKind', x.part_kind,
-                  'findings', x.n, 'units', x.units, 'repeats', x.r, 'along', x.sa / x.n, 'left', x.sl / x.n) order by x.n desc, x.label), '[]')
-           from (select label, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, count(*)::int as units,
-                        sum(r)::int as r, sum(sa) as sa, sum(sl) as sl
-                   from lu group by label) x) as rows,
-        (select coalesce(json_agg(json_build_object('col', c.col, 'row', c.row, 'count', c.n) order by c.col, c.row), '[]')
-           from (select col, row, sum(n)::int as n from g where not by_part group by 1, 2) c) as cells,
-        (select coalesce(json_agg(json_build_object('month', to_char(mb.local[m.b], 'YYYY-MM'), 'findings', m.n, 'repeats', m.r) order by m.b), '[]')
-           from (select b, sum(n)::int as n, sum(r)::int as r from g where not by_part group by 1) m, mb) as months,
-        (select coalesce(json_agg(json_build_object('unitId', w.unit_id, 'roadNumber', un.road_number, 'frontEnd', un.front_end,
-                  'repeats', w.r, 'findings', w.n) order by w.r desc, un.road_number), '[]')
-           from (select unit_id, sum(r)::int as r, sum(n)::int as n from lu group by unit_id having sum(r) > 0
-                  order by 2 desc, 1 limit 10) w join units un on un.id = w.unit_id) as "repeatUnits",
-        (select json_build_object('findings', coalesce(sum(n), 0)::int, 'units', count(distinct unit_id)::int, 'repeats', coalesce(sum(r), 0)::int)
-           from lu) as totals`;
+      ),
+      out_fleet as (
+        select type, kind, n from fleet where n > 0
+        union all
+        select $1, part_kind, sum(n)::int from g where by_part group by part_kind
+      ),
+      out_rows as (
+        select label, min(part_kind) as part_kind, min(part_label) as part_label, sum(n)::int as n, count(*)::int as units,
+               sum(r)::int as r, sum(sa) as sa, sum(sl) as sl
+          from lu group by label
+      ),
+      out_cells as (select col, row, sum(n)::int as n from g where not by_part group by 1, 2),
+      out_months as (
+        select mb.local[m.b]::date as month, m.n, m.r
+          from (select b, sum(n)::int as n, sum(r)::int as r from g where not by_part group by 1) m, mb
+      ),
+      out_units as (select unit_id, sum(n)::int as n, sum(r)::int as r from lu group by unit_id)
+      ${screenSelect({ type: '$1', t0: T0, t1: T1, yards: '$6::uuid[]' })}`;
     return inTx(pool, async (c) => (await c.query<Aggregate>(text, [...params(f, s), cellIn, otherTypes])).rows[0]);
   },
 

@@ -48,8 +48,9 @@ function localTime(d: Date | null, timeZone: string): string {
   return `${g('year')}-${g('month')}-${g('day')} ${g('hour')}:${g('minute')}`;
 }
 
-export function hotSpotsService(pool: pg.Pool, drawings: ReadonlyMap<string, Drawing>) {
-  const repo = hotSpotsRepository(pool);
+/** `opts.summary = false` computes every screen from findings alone (tests and the bench compare the two). */
+export function hotSpotsService(pool: pg.Pool, drawings: ReadonlyMap<string, Drawing>, opts: { summary?: boolean } = {}) {
+  const repo = hotSpotsRepository(pool, opts);
   // How many parts of each kind a unit of each type has, from its drawing (the exposure per inspection).
   const positionsByType = new Map<string, Map<string, number>>();
   for (const d of drawings.values()) {
