@@ -219,6 +219,45 @@ describe('the hot spots summary', () => {
     await expectScreensAgree();
   });
 
+  it('lets a pin and a repair of the same part go through side by side (the pin takes its turn on the part before any summary row)', async () => {
+    // The repair's order (server/modules/repairs/service.ts): the part's turn first, then its writes. The pin's: the
+    // finding, then its turn (priorRepairs.fill). Were the pin to hold summary rows while it waits for its turn,
+    // the repair's write of the same rows would wait for the pin: neither would finish.
+    const f0 = (await t.pool.query(`select id from findings where unit_type_key = 'four_axle_road' and state <> 'voided' order by created_at desc limit 1`)).rows[0].id;
+    const [now] = await copiesAt(f0, [new Date()]);
+    const key = `(select hashtext(unit_id::text || '/' || instance_id || '/' || defect_type) from findings where id = '${now}')`;
+    const repair = await t.pool.connect();
+    const pin = await t.pool.connect();
+    let pinned: string[] = [];
+    try {
+      await repair.query(`begin; set local statement_timeout = '5s'; select pg_advisory_xact_lock(4242006, ${key})`);
+      await pin.query(`begin; set local statement_timeout = '10s'`);
+      const inserting = pin.query(
+        `insert into findings (inspection_id, unit_id, unit_type_key, part_id, instance_id, part_kind, view, body_x, body_y, body_z, front_along, front_left,
+           front_end, label, part_label, side, end_role, number, defect_type, weight, state, created_by, created_at, updated_at)
+         select inspection_id, unit_id, unit_type_key, part_id, instance_id, part_kind, view, body_x, body_y, body_z, front_along, front_left,
+           front_end, label, part_label, side, end_role, number, defect_type, weight, 'open', created_by, now(), now() from findings where id = $1 returning id`,
+        [now],
+      );
+      await new Promise((r) => setTimeout(r, 200));
+      // The repair's recount of a later finding of the part, in the current month (a repeat now).
+      await repair.query(`update findings set prior_repair_days = 0 where id = $1`, [now]);
+      await repair.query('commit');
+      pinned = (await inserting).rows.map((x) => x.id);
+      await pin.query(`select pg_advisory_xact_lock(4242006, ${key})`);
+      await pin.query('commit');
+    } finally {
+      await repair.query('rollback').catch(() => {});
+      await pin.query('rollback').catch(() => {});
+      repair.release();
+      pin.release();
+    }
+    expect(pinned).toHaveLength(1);
+    await expectSummaryKept();
+    await t.pool.query(`delete from findings where id = any($1::uuid[])`, [[now, ...pinned]]);
+    await expectSummaryKept();
+  });
+
   it('follows a new repeat window and a new time zone', async () => {
     expect((await admin.patch('/api/settings', { repeatWindowDays: 30 })).status).toBe(200);
     await expectSummaryKept();
