@@ -65,27 +65,34 @@ async function main() {
     // inspection and one finding on it. Passes are handed out in turn, so the 50 connections spread over the 50 inspections.
     let pass = 0;
     let n = 0;
-    type Ctx = { i?: number };
+    type Ctx = { i?: number; t?: number };
     const mine = (c: Ctx) => inspections[c.i ?? 0];
+    const kinds: { name: string; method: 'GET' | 'POST'; path(c: Ctx): string; body?(): Record<string, string> }[] = [
+      { name: 'GET /api/units', method: 'GET', path: () => '/api/units' },
+      { name: 'GET /api/units/:id/layout', method: 'GET', path: (c) => `/api/units/${mine(c).unitId}/layout` },
+      { name: 'GET /api/repairs', method: 'GET', path: () => '/api/repairs' },
+      { name: 'GET /api/inspections/:id', method: 'GET', path: (c) => `/api/inspections/${mine(c).id}` },
+      { name: 'POST /api/inspections/:id/findings', method: 'POST', path: (c) => `/api/inspections/${mine(c).id}/findings` },
+    ];
+    // Latency per kind of request, for finding where the time goes (a connection sends one request at a time).
+    const samples = new Map<string, number[]>(kinds.map((k) => [k.name, []]));
     const result = await autocannon({
       url: base,
       connections: CONNECTIONS,
       duration: DURATION,
       headers: h,
-      requests: [
-        { method: 'GET', path: '/api/units', setupRequest: (req, c: Ctx) => ((c.i = pass++ % inspections.length), req) },
-        { method: 'GET', path: '/', setupRequest: (req, c: Ctx) => ({ ...req, path: `/api/units/${mine(c).unitId}/layout` }) },
-        { method: 'GET', path: `/api/repairs` },
-        { method: 'GET', path: '/', setupRequest: (req, c: Ctx) => ({ ...req, path: `/api/inspections/${mine(c).id}` }) },
-        {
-          method: 'POST',
-          path: '/',
-          setupRequest: (req, c: Ctx) => {
-            n++;
-            return { ...req, path: `/api/inspections/${mine(c).id}/findings`, headers: { ...h, 'idempotency-key': `bench-${process.pid}-${n}` }, body: JSON.stringify({ partId: 'pl-traction_motor_2', view: 'plan', x: 170 + (n % 6), y: (n % 30) - 15, defectType: 'traction_motor_other', note: `load ${n}` }) };
-          },
+      requests: kinds.map((k, idx) => ({
+        method: k.method,
+        path: '/',
+        setupRequest: (req: autocannon.Request, c: Ctx) => {
+          if (idx === 0) c.i = pass++ % inspections.length;
+          c.t = performance.now();
+          if (k.method === 'GET') return { ...req, path: k.path(c) };
+          n++;
+          return { ...req, path: k.path(c), headers: { ...h, 'idempotency-key': `bench-${process.pid}-${n}` }, body: JSON.stringify({ partId: 'pl-traction_motor_2', view: 'plan', x: 170 + (n % 6), y: (n % 30) - 15, defectType: 'traction_motor_other', note: `load ${n}` }) };
         },
-      ],
+        onResponse: (_status: number, _body: string, c: Ctx) => void samples.get(k.name)!.push(performance.now() - (c.t ?? 0)),
+      })),
     });
     const errors = result.errors + result.timeouts + result.non2xx;
     console.log(`\nbench:load — ${CONNECTIONS} connections, ${DURATION} s, mixed reads and finding writes (1 write in 5), loopback, production build, ${PROCESSES} server process${PROCESSES === 1 ? '' : 'es'}`);
@@ -93,6 +100,9 @@ async function main() {
     console.log(`latency p50: ${result.latency.p50} ms  p99: ${result.latency.p99} ms  (goal p99 < 100 ms)`);
     console.log(`errors: ${errors} (connection ${result.errors}, timeouts ${result.timeouts}, non-2xx ${result.non2xx})  (goal 0)`);
     console.log(`findings written: ${n}`);
+    const pct = (xs: number[], q: number) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(q * xs.length))] : 0);
+    console.log('by request:');
+    for (const [name, xs] of samples) console.log(`  ${name.padEnd(36)} n ${String(xs.length).padStart(5)}  p50 ${pct(xs, 0.5).toFixed(0).padStart(4)} ms  p99 ${pct(xs, 0.99).toFixed(0).padStart(5)} ms`);
   } finally {
     server.kill('SIGTERM');
   }

@@ -32,6 +32,36 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       .limit(1);
     return r[0] ? { ...r[0].unit, yardName: r[0].yardName } : null;
   },
+  /** What pinning a finding needs before its transaction, in one query: the inspection, its unit and yard, and the railroad's time zone. */
+  async findingContext(inspectionId: string) {
+    const r = await db
+      .select({ insp: inspections, unit: units, yardName: yards.name, timeZone: railroadSettings.timeZone })
+      .from(inspections)
+      .innerJoin(units, eq(units.id, inspections.unitId))
+      .leftJoin(yards, eq(yards.id, units.yardId))
+      .leftJoin(railroadSettings, eq(railroadSettings.id, 1))
+      .where(eq(inspections.id, inspectionId))
+      .limit(1);
+    const row = r[0];
+    return row ? { insp: row.insp, unit: { ...row.unit, yardName: row.yardName }, timeZone: row.timeZone ?? 'UTC' } : null;
+  },
+  /**
+   * A new finding's trail in one statement: its "created" event, its part marked as a finding in the
+   * coverage, and the audit entry (inside the caller's transaction, like the finding itself).
+   */
+  async findingTrail(t: { findingId: string; inspectionId: string; instanceId: string; actorId: string; event: unknown; ip: string | null; action: string; audit: unknown }) {
+    await db.execute(sql`
+      with ev as (
+        insert into finding_events (finding_id, kind, to_state, actor_id, details)
+        values (${t.findingId}, 'created', 'open', ${t.actorId}, ${JSON.stringify(t.event)}::jsonb)
+      ), item as (
+        insert into inspection_items (inspection_id, instance_id, state, reason, updated_at)
+        values (${t.inspectionId}, ${t.instanceId}, 'finding', null, now())
+        on conflict (inspection_id, instance_id) do update set state = 'finding', reason = null, updated_at = now()
+      )
+      insert into audit_log (actor_id, action, entity, entity_id, ip, details)
+      values (${t.actorId}, ${t.action}, 'finding', ${t.findingId}, ${t.ip}, ${JSON.stringify(t.audit)}::jsonb)`);
+  },
   async lockUnit(id: string) {
     await db.execute(sql`select id from units where id = ${id} for update`);
   },
@@ -135,12 +165,6 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       });
   },
   /** Marks an item as having a finding unless it already says so. */
-  async markFindingItem(inspectionId: string, instanceId: string) {
-    await db
-      .insert(inspectionItems)
-      .values({ inspectionId, instanceId, state: 'finding', reason: null })
-      .onConflictDoUpdate({ target: [inspectionItems.inspectionId, inspectionItems.instanceId], set: { state: 'finding', reason: null, updatedAt: new Date() } });
-  },
   async findingsOfInspection(inspectionId: string) {
     return db.select().from(findings).where(eq(findings.inspectionId, inspectionId)).orderBy(asc(findings.createdAt));
   },
@@ -155,9 +179,6 @@ export const walkaroundRepository = (db: DbOrTx) => ({
   async insertFinding(v: typeof findings.$inferInsert) {
     const [r] = await db.insert(findings).values(v).returning();
     return r;
-  },
-  async insertEvent(v: typeof findingEvents.$inferInsert) {
-    await db.insert(findingEvents).values(v);
   },
   /** The photos of every finding of an inspection, in one query beside the findings'. */
   async photosOfInspection(inspectionId: string) {
@@ -197,6 +218,19 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       .from(findings)
       .where(and(eq(findings.unitId, unitId), eq(findings.weight, 'federal'), inArray(findings.state, ['open', 'in_repair', 'repaired'])))
       .orderBy(asc(findings.createdAt));
+  },
+  /** The unit (with its yard), the inspector's name and the railroad, for showing an inspection: one query. */
+  async viewHeader(unitId: string, inspectorId: string) {
+    const r = await db
+      .select({ unit: units, yardName: yards.name, inspectorName: people.name, railroad: { name: railroadSettings.name, reportingMark: railroadSettings.reportingMark, timeZone: railroadSettings.timeZone } })
+      .from(units)
+      .leftJoin(yards, eq(yards.id, units.yardId))
+      .leftJoin(people, eq(people.id, inspectorId))
+      .leftJoin(railroadSettings, eq(railroadSettings.id, 1))
+      .where(eq(units.id, unitId))
+      .limit(1);
+    const row = r[0];
+    return row ? { unit: { ...row.unit, yardName: row.yardName }, inspectorName: row.inspectorName ?? '', railroad: row.railroad } : null;
   },
   async personName(id: string) {
     const r = await db.select({ name: people.name }).from(people).where(eq(people.id, id)).limit(1);

@@ -113,15 +113,14 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
 
   async function view(insp: InspectionRow): Promise<InspectionView> {
     const repo = walkaroundRepository(db);
-    const [unit, items, fs, photoRows, corrections, settings, inspectorName] = await Promise.all([
-      repo.unit(insp.unitId),
+    const [header, items, fs, photoRows, corrections] = await Promise.all([
+      repo.viewHeader(insp.unitId, insp.inspectorId),
       repo.items(insp.id),
       repo.findingsOfInspection(insp.id),
       repo.photosOfInspection(insp.id),
       repo.corrections(insp.id),
-      repo.settings(),
-      repo.personName(insp.inspectorId),
     ]);
+    const { unit, inspectorName, railroad: settings } = header!;
     const photosBy = new Map<string, string[]>();
     for (const p of photoRows) photosBy.set(p.findingId, [...(photosBy.get(p.findingId) ?? []), p.id]);
     const routine = insp.routineSnapshot as Routine;
@@ -172,10 +171,11 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       const prior = await repo.findingByKey(person.id, body.idempotencyKey);
       if (prior) return { replayed: true, finding: toFindingView(prior, (await repo.photosOf([prior.id])).map((p) => p.id)) };
     }
-    const insp = await load(inspectionId);
+    const ctx = await repo.findingContext(inspectionId);
+    if (!ctx) throw notFound('Inspection');
+    const { insp, unit } = ctx;
     assertOwner(insp, person);
     assertOpen(insp);
-    const unit = (await repo.unit(insp.unitId))!;
     const drawing = drawingOf(unit.unitTypeKey);
     const view = drawing.views.find((v) => v.key === body.view);
     if (!view) throw new AppError('validation', `This unit type has no ${body.view} view`, { view: 'Not a view of this unit type' });
@@ -204,7 +204,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
     if (defect.partKind !== part.kind) {
       throw new AppError('validation', `“${defect.label}” is not a defect of a ${part.kind.replace(/_/g, ' ')}`, { defectType: 'Not a defect of this part' });
     }
-    const day = await today();
+    const day = civilDateInZone(new Date(), ctx.timeZone);
     let checkResult: Record<string, unknown> | null = null;
     const input = defect.check ? checkInputFor(defect, body, { humpStencilled: unit.humpStencilled, today: day }) : null;
     if (defect.check && input) {
@@ -267,8 +267,16 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
         });
         // Hot spots' repeat rule reads the days since this part's last repair; kept at write time.
         await priorRepairs(tx).fill(f.id);
-        await r.insertEvent({ findingId: f.id, kind: 'created', toState: 'open', actorId: person.id, details: { label, weight } });
-        await r.markFindingItem(insp.id, part.instanceId);
+        await r.findingTrail({
+          findingId: f.id,
+          inspectionId: insp.id,
+          instanceId: part.instanceId,
+          actorId: person.id,
+          event: { label, weight },
+          ip,
+          action: opts.systemFinding ? 'finding_raised_by_system' : 'finding_created',
+          audit: { inspectionId: insp.id, partId: part.id, defectType: defect.key, weight },
+        });
         if (weight === 'federal') {
           const wasOpen = await r.openTag(unit.id);
           await r.markNonComplying(unit.id, person.id, unit.yardName ?? '');
@@ -296,7 +304,6 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
             })),
           );
         }
-        await audit(tx, { actorId: person.id, action: opts.systemFinding ? 'finding_raised_by_system' : 'finding_created', entity: 'finding', entityId: f.id, ip, details: { inspectionId: insp.id, partId: part.id, defectType: defect.key, weight } });
         return f;
       });
       return { replayed: false, finding: toFindingView(row) };
