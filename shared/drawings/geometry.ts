@@ -115,20 +115,24 @@ export function shapeContains(shape: Shape, p: ViewCoord, lineTolerance = 0): bo
   }
 }
 
+const boxesOverlap = (a: Box, b: Box): boolean => a.umin <= b.umax && b.umin <= a.umax && a.vmin <= b.vmax && b.vmin <= a.vmax;
+
 /**
- * The part a tap at `p` means: the topmost part that either covers the point (lines and
- * outlines within half a finger) or, when it is thinner than a finger either way, holds the
- * point in its enlarged hit box. Small parts are drawn over what they sit on, so a near miss
- * beside a stanchion picks the stanchion, not the walkway under it.
+ * The part a tap at `p` means: the topmost part that covers the point (lines and outlines within
+ * half a finger), unless a part thinner than a finger either way is drawn over it, holds the point
+ * in its enlarged hit box and touches it. A near miss beside a stanchion on the walkway picks the
+ * stanchion; a tap squarely on a traction motor picks the motor, even where the enlarged box of the
+ * axle beside it (not on it) reaches over. With nothing covering the point, the enlarged box decides.
  */
 export function partAtPoint(view: DrawingView, p: ViewCoord, minSideIn: number): ViewPart | undefined {
+  let near: ViewPart | undefined;
   for (let i = view.parts.length - 1; i >= 0; i--) {
     const part = view.parts[i];
-    if (shapeContains(part.shape, p, minSideIn / 2)) return part;
+    if (shapeContains(part.shape, p, minSideIn / 2)) return near && boxesOverlap(near.bbox, part.bbox) ? near : part;
     const small = part.bbox.umax - part.bbox.umin < minSideIn || part.bbox.vmax - part.bbox.vmin < minSideIn;
-    if (small && boxContains(hitArea(part, minSideIn), p)) return part;
+    if (!near && small && boxContains(hitArea(part, minSideIn), p)) near = part;
   }
-  return undefined;
+  return near;
 }
 
 function bodyAxes(key: ViewKey, p: ViewCoord): Record<'x' | 'y' | 'z', number> {

@@ -61,6 +61,21 @@ describe('minimum finger target', () => {
     expect(partAtPoint(plan, at, minHitSideIn(cam.scale))?.instanceId).toBe('axle_1');
     expect(partAtPoint(plan, at, 0.1)?.instanceId).toBe('truck_1');
   });
+  it('gives a tap squarely on a traction motor to the motor, though the axle beside it reaches over with its enlarged target', () => {
+    // Plain geometry of the sample plan: axle 1 is 7 in wide at x = 74 in; at whole-unit zoom its 34 px
+    // target spans more than ±14 in, over traction motor 1 (x 80–104 in), which lies beside it, not under it.
+    const o = viewOrientation(plan, 'as_built', 'short_hood');
+    const cam = fitCamera(plan.bounds, o, vp);
+    const side = minHitSideIn(cam.scale);
+    const axle = plan.parts.find((p) => p.instanceId === 'axle_1')!;
+    const motor = plan.parts.find((p) => p.instanceId === 'traction_motor_1')!;
+    const onMotor = { u: motor.bbox.umin + 2, v: 0 };
+    expect(Math.abs(onMotor.u - (axle.bbox.umin + axle.bbox.umax) / 2)).toBeLessThan(side / 2);
+    expect(partAtPoint(plan, onMotor, side)?.instanceId).toBe('traction_motor_1');
+    // Between the axle and the motor, on the truck frame the axle sits on, the axle's target still wins.
+    const between = { u: axle.bbox.umax + 1, v: 0 };
+    expect(partAtPoint(plan, between, side)?.instanceId).toBe('axle_1');
+  });
 });
 
 describe('fit to screen', () => {
