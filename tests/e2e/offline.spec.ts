@@ -28,6 +28,8 @@ async function openArea(page: Page, name: RegExp) {
 /** The parts listed for the open area, with their instance ids and labels. */
 async function partsOfArea(page: Page, area: string) {
   const list = page.getByRole('list', { name: `Parts of ${area}` });
+  // The area opens on a tap; read its parts once they are drawn (evaluateAll does not wait).
+  await expect(list.locator('li[data-instance]').first()).toBeVisible();
   return list.locator('li[data-instance]').evaluateAll((els) => els.map((e) => ({ id: (e as HTMLElement).dataset.instance!, label: e.querySelector('span.text-lg')?.childNodes[0]?.textContent ?? '' })));
 }
 
