@@ -3,7 +3,7 @@ import { DEFECT_TYPES } from '../../../../shared/defects/catalogue';
 import { PART_KINDS, isPartKind } from '../../../../shared/domain/parts';
 import { FINDING_WEIGHTS, type FindingWeight } from '../../../../shared/domain/states';
 import type { UnitTypeItem } from '../api/pickers';
-import { WEIGHT_WORD, WeightGlyph } from './weight-glyph';
+import { WEIGHT_WORD, WeightShape } from '../../../components/weight-mark';
 
 interface Props {
   filters: HotSpotsParams;
@@ -46,7 +46,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
           {FINDING_WEIGHTS.map((w: FindingWeight) => (
             <label key={w} className={`btn px-3 ${filters.weights.includes(w) ? 'border-accent bg-accent-soft' : ''}`}>
               <input type="checkbox" className="sr-only" checked={filters.weights.includes(w)} onChange={() => onChange((f) => ({ weights: toggle(f.weights, w) }))} />
-              <WeightGlyph weight={w} />
+              <WeightShape weight={w} size={16} />
               {WEIGHT_WORD[w]}
             </label>
           ))}
@@ -81,7 +81,7 @@ export function Filters({ filters, onChange, unitTypes, yards, kinds }: Props) {
               {types.map((d) => (
                 <label key={d.key} className="flex min-h-12 items-center gap-2 text-base">
                   <input type="checkbox" className="size-5" checked={filters.defectTypes.includes(d.key)} onChange={() => onChange((f) => ({ defectTypes: toggle(f.defectTypes, d.key) }))} />
-                  <WeightGlyph weight={d.weight} size={14} />
+                  <WeightShape weight={d.weight} size={14} />
                   {d.label}
                 </label>
               ))}

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import type { HotSpotRow, HotSpotsParams } from '../../../../shared/api/hot-spots';
 import { formatCount, formatRate } from '../../../../shared/hot-spots/rates';
 import { findingsCsvHref, useRowFindings } from '../api/hot-spots';
-import { WEIGHT_WORD, WeightGlyph } from './weight-glyph';
+import { WeightMark } from '../../../components/weight-mark';
 
 const STATE_WORD = { open: 'Open', in_repair: 'In repair', repaired: 'Repaired', verified: 'Verified', voided: 'Voided' } as const;
 
@@ -53,8 +53,7 @@ export function RowDetail({ row, filters, timeZone, repeatWindowDays, onClose }:
               <li key={f.id}>
                 <Link to={`/repairs/findings/${f.id}`} className="flex min-h-12 flex-wrap items-center gap-x-3 gap-y-1 px-1 py-2 hover:bg-paper-2">
                   <span className="inline-flex items-center gap-1 font-bold">
-                    <WeightGlyph weight={f.weight} />
-                    <span className="sr-only">{WEIGHT_WORD[f.weight]}</span>
+                    <WeightMark weight={f.weight} size={16} word="hidden" />
                     {f.roadNumber}
                   </span>
                   <span>{f.defectLabel}</span>

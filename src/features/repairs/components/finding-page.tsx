@@ -14,7 +14,7 @@ import { OverdueBadge, StateBadge } from './badges';
 import { FindingActions } from './finding-actions';
 import { PhotoPicker, UploadList, useRepairUploads } from './repair-photos';
 import { TagPanel } from './tag-panel';
-import { WeightMark } from './weight-mark';
+import { WeightMark } from '../../../components/weight-mark';
 
 export function FindingPage() {
   const { id = '' } = useParams();

@@ -3,6 +3,7 @@ import { FINDING_STATES, FINDING_WEIGHTS } from '../../../../shared/domain/state
 import type { QueueFilterKey, QueueFilters } from '../api/queue';
 import type { Yard } from '../api/pickers';
 import { STATE_WORDS } from '../lib/format';
+import { WEIGHT_WORD } from '../../../components/weight-mark';
 
 interface Props {
   filters: QueueFilters;
@@ -12,8 +13,6 @@ interface Props {
   units: { id: string; roadNumber: string }[];
   people: { id: string; name: string }[];
 }
-
-const WEIGHT_WORDS = { federal: 'Federal', shop: 'Shop', note: 'Note' } as const;
 
 /** Filters live in the address, so a filtered queue can be shared, reloaded and exported as it is. */
 export function QueueFilterBar({ filters, onChange, onClear, yards, units, people }: Props) {
@@ -59,7 +58,7 @@ export function QueueFilterBar({ filters, onChange, onClear, yards, units, peopl
       {select('yard', 'Yard', yards.map((y) => ({ value: y.id, label: y.name })), 'All yards')}
       {select('unit', 'Unit', units.map((u) => ({ value: u.id, label: u.roadNumber })), 'All units')}
       {select('state', 'State', FINDING_STATES.map((s) => ({ value: s, label: STATE_WORDS[s] })), 'In the queue')}
-      {select('weight', 'Weight', FINDING_WEIGHTS.map((w) => ({ value: w, label: WEIGHT_WORDS[w] })), 'All weights')}
+      {select('weight', 'Weight', FINDING_WEIGHTS.map((w) => ({ value: w, label: WEIGHT_WORD[w] })), 'All weights')}
       {select('assignee', 'Assigned to', people.map((p) => ({ value: p.id, label: p.name })), 'Anyone')}
       {any && (
         <div className="col-span-2 flex items-end md:col-span-4 lg:col-span-7">

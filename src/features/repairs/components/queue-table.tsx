@@ -5,7 +5,7 @@ import type { QueueItem, QueueSortColumn } from '../../../../shared/api/repairs'
 import { ageWords, formatWhen } from '../lib/format';
 import { T } from '../lib/table-classes';
 import { NonComplyingBadge, OverdueBadge, StateBadge } from './badges';
-import { WeightMark } from './weight-mark';
+import { WeightMark } from '../../../components/weight-mark';
 
 const col = createColumnHelper<QueueItem>();
 // Column ids are the server's sort columns: the server sorts (always under "non-complying units first").

@@ -1,5 +1,4 @@
 import type { FrontEnd } from '../../../../shared/domain/frames';
-import type { FindingWeight } from '../../../../shared/domain/states';
 import type { UnitDueState } from '../../../../shared/due/board';
 import { FRONT_END_WORDS } from '../lib/format';
 
@@ -62,23 +61,6 @@ export function DueFlag({ state, large = false }: { state: UnitDueState; large?:
         <path d="M2 1 H12 M2 15 H12 M3 1 C3 6 11 10 11 15 M11 1 C11 6 3 10 3 15" fill="none" stroke="currentColor" strokeWidth="1.8" />
       </svg>
       {overdue ? 'OVERDUE' : 'DUE SOON'}
-    </span>
-  );
-}
-
-const WEIGHT_WORDS: Record<FindingWeight, string> = { federal: 'Federal', shop: 'Shop', note: 'Note' };
-
-/** A finding's weight by shape as well as colour: federal a filled diamond, shop a ring, note a small dot (brief §6b). */
-export function WeightMark({ weight }: { weight: FindingWeight }) {
-  const colour = weight === 'federal' ? 'text-federal' : weight === 'shop' ? 'text-shop' : 'text-note';
-  return (
-    <span className={`inline-flex items-center gap-1.5 font-bold whitespace-nowrap ${colour}`} data-weight={weight}>
-      <svg width="16" height="16" viewBox="0 0 20 20" aria-hidden="true" className="shrink-0">
-        {weight === 'federal' && <path d="M10 1 L19 10 L10 19 L1 10 Z" fill="currentColor" />}
-        {weight === 'shop' && <circle cx="10" cy="10" r="6.5" fill="none" stroke="currentColor" strokeWidth="4" />}
-        {weight === 'note' && <circle cx="10" cy="10" r="4" fill="currentColor" />}
-      </svg>
-      {WEIGHT_WORDS[weight]}
     </span>
   );
 }

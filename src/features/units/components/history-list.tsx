@@ -4,7 +4,7 @@ import { Link } from 'react-router-dom';
 import { inspectionQuery, type HistoryItem } from '../api/history';
 import { formatSpan, formatWhen, plural } from '../lib/format';
 import { historyEntries, type HistoryGroup } from '../lib/history';
-import { WeightMark } from './flags';
+import { WeightMark } from '../../../components/weight-mark';
 
 const PAGE = 40;
 // Links in a list are still finger targets: at least 48 px tall.
@@ -102,7 +102,7 @@ export function HistoryList({ items, canOpenRecords, timeZone }: { items: readon
               <div className="col-start-1 min-w-0 sm:col-start-auto sm:py-2.5">
                 <p className="flex flex-wrap items-center gap-x-2">
                   <span className="font-bold">{e.title}</span>
-                  {h.weight && e.group === 'finding' && <WeightMark weight={h.weight} />}
+                  {h.weight && e.group === 'finding' && <WeightMark weight={h.weight} size={16} />}
                   {h.actor && <span className="text-graphite-2">· {h.actor}</span>}
                 </p>
                 {e.detail &&

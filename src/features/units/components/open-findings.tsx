@@ -4,7 +4,7 @@ import type { FrontEnd } from '../../../../shared/domain/frames';
 import type { UnitLayout } from '../../../../shared/layout/unit-layout';
 import type { FindingPinDetail } from '../api/findings';
 import { FINDING_STATE_WORDS, HOOD_WORDS, formatWhen } from '../lib/format';
-import { WeightMark } from './flags';
+import { WeightMark } from '../../../components/weight-mark';
 
 /**
  * The unit's open findings (open, in repair, repaired and not yet verified), each with the name it
@@ -45,7 +45,7 @@ export function OpenFindings({
               <li key={f.id} className="flex flex-wrap items-start gap-x-3 gap-y-1 py-2" data-finding={f.id}>
                 <div className="min-w-0 flex-1 space-y-0.5">
                   <p className="flex flex-wrap items-center gap-x-2">
-                    <WeightMark weight={f.weight} />
+                    <WeightMark weight={f.weight} size={16} />
                     <Link to={`/repairs/findings/${f.id}`} className="inline-flex min-h-12 items-center text-lg font-bold underline decoration-2 underline-offset-4">
                       {f.label}
                     </Link>

@@ -14,7 +14,7 @@ import { liveCheck, readingKind } from '../lib/check-input';
 import { emptyFindingForm, findingFormSchema, formFieldOf, readingOf, toFindingBody, type FindingFormValues } from '../lib/finding-form';
 import { PhotoPicker, PhotoUploads } from './photo-uploads';
 import { mustQueue, queueFinding } from '../offline/sync';
-import { WeightMark } from './weight-mark';
+import { WeightMark } from '../../../components/weight-mark';
 
 /** The part and spot a finding is pinned on. */
 export interface FindingTarget {

@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import type { ClientFinding } from '../api/inspections';
 import { measurementText } from '../lib/format';
 import { PhotoPicker, PhotoUploads } from './photo-uploads';
-import { WeightMark } from './weight-mark';
+import { WeightMark } from '../../../components/weight-mark';
 
 function CheckLine({ f }: { f: ClientFinding }) {
   const c = f.checkResult as { result?: string; limit?: string; source?: string } | null;

@@ -8,7 +8,7 @@ import { tagQuery } from '../api/tag';
 import { drawingQuery } from '../api/units';
 import { endName, formatInZone, kindName, measurementText } from '../lib/format';
 import { instanceLabels } from '../lib/walk';
-import { WeightMark } from './weight-mark';
+import { WeightMark } from '../../../components/weight-mark';
 import './print.css';
 
 function Correction({ insp }: { insp: ClientInspection }) {
