@@ -219,7 +219,8 @@ test('offline: three findings (one with a photo), an area passed and a part mark
   const failed = page.getByTestId('offline-failed');
   await expect(failed).toBeVisible();
   await expect(failed).toContainText('Could not be sent');
-  await expect(failed.getByTestId('failed-entry')).toHaveCount(2);
+  // Sent one after the other; on a busy machine the second answer can take longer than the default wait.
+  await expect(failed.getByTestId('failed-entry')).toHaveCount(2, { timeout: 30_000 });
   const [refusedFinding, refusedMark] = [failed.locator('[data-kind=finding]'), failed.locator('[data-kind=coverage]')];
   await expect(refusedFinding).toContainText(PILOT);
   // The server's own words (409 conflict), whichever way it puts that the record is signed.
