@@ -8,22 +8,12 @@ import type { AttemptView } from '../../shared/api/lab';
 import { expectedFor, flipSteps, planTopYSign, type Prompt } from '../../shared/lab';
 import { unitLayout } from '../../shared/layout/unit-layout';
 import { resolveTap } from '../../src/features/orientation-lab/lib/resolve-tap';
-import { DEMO_PASSWORD } from './helpers';
+import { signIn } from './helpers';
 
 // The right (and the wrong) answers are worked out here with the shared engine from the prompts the
 // page shows; the seed in the address only makes the run repeatable.
 const drawings = loadDrawingsFromDir('diagrams');
 const SEED = 4242;
-
-// helpers.signIn waits for the name in the header, which the shell now shows only on wide screens;
-// the Sign out button is there at every width.
-async function signIn(page: Page, role: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${role}@demo.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByRole('button', { name: 'Sign out' })).toBeVisible();
-}
 
 async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();

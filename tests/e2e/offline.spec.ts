@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { DEMO_PASSWORD } from './helpers';
+import { DEMO_PASSWORD, freePointOf, signIn } from './helpers';
 
 // Offline walkaround: findings pinned and parts passed or marked n.a. without a connection are kept on the
 // device and sent once, in order, the moment it returns (the server keeps one finding per idempotency key, and
@@ -40,30 +40,6 @@ async function markNa(page: Page, label: string, reason: string) {
   await page.getByRole('button', { name: 'Mark n.a.' }).click();
 }
 
-async function signInAs(page: Page, role: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${role}@demo.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in')).toBeAttached();
-}
-
-/** A point inside the part's outline that no other outlined part covers. */
-async function freePointOf(page: Page, instanceId: string) {
-  return page.evaluate((id) => {
-    const rects = [...document.querySelectorAll<SVGRectElement>('[data-testid=area-outlines] rect')].map((r) => ({ id: r.dataset.instance, b: r.getBoundingClientRect() }));
-    const me = rects.find((r) => r.id === id)!.b;
-    const others = rects.filter((r) => r.id !== id).map((r) => r.b);
-    for (let fy = 0.9; fy > 0.1; fy -= 0.05)
-      for (let fx = 0.1; fx < 0.9; fx += 0.05) {
-        const x = me.left + me.width * fx;
-        const y = me.top + me.height * fy;
-        if (!others.some((o) => x >= o.left - 4 && x <= o.right + 4 && y >= o.top - 4 && y <= o.bottom + 4)) return { x, y };
-      }
-    return { x: me.left + me.width / 2, y: me.top + me.height * 0.85 };
-  }, instanceId);
-}
-
 async function getInsp(page: Page, id: string) {
   const r = await page.request.get(`/api/inspections/${id}`);
   expect(r.ok()).toBe(true);
@@ -88,7 +64,7 @@ test('offline: three findings (one with a photo), an area passed and a part mark
   test.setTimeout(240_000);
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await signInAs(page, 'inspector');
+  await signIn(page, 'inspector');
 
   // Start a daily inspection of HRL 2201 online (F on the short hood, as the record says).
   await page.goto('/walkaround');
@@ -205,7 +181,7 @@ test('offline: three findings (one with a photo), an area passed and a part mark
   // Meanwhile the same inspector signs the record from another device.
   const other = await browser.newContext();
   const otherPage = await other.newPage();
-  await signInAs(otherPage, 'inspector');
+  await signIn(otherPage, 'inspector');
   insp = await getInsp(otherPage, id);
   const gaps = insp.coverage.gaps.map((g) => g.instanceId);
   if (gaps.length) expect((await otherPage.request.post(`/api/inspections/${id}/coverage`, { data: { instanceIds: gaps, state: 'passed' } })).ok()).toBe(true);

@@ -10,19 +10,10 @@ import type { FrontEnd, ViewKey } from '../../shared/domain/frames';
 import { partAtPoint } from '../../shared/drawings/geometry';
 import { minHitSideIn, viewOrientation, viewToScreen, type Camera, type DrawingMode } from '../../shared/drawings/screen';
 import type { Drawing, ViewPart } from '../../shared/drawings/types';
-import { DEMO_PASSWORD } from './helpers';
+import { signIn } from './helpers';
 
 const UNIT = 'HRL 4101'; // demo six-axle road unit; its record has the F on the short hood
 const SHOTS = '.tmp/screens';
-
-async function signInAs(page: Page, role: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${role}@demo.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  // The name badge shows only on wide screens; being in the page is enough.
-  await expect(page.getByTestId('signed-in')).toBeAttached();
-}
 
 const canvasBox = (page: Page) => page.getByTestId('unit-canvas');
 const surface = (page: Page) => canvasBox(page).getByRole('application');
@@ -128,7 +119,7 @@ async function changeFrontEnd(page: Page, to: 'short hood' | 'long hood', reason
 test.describe.configure({ mode: 'serial' });
 
 test('the roster filters and opens a unit; screenshots at tablet and phone size', async ({ page }) => {
-  await signInAs(page, 'inspector');
+  await signIn(page, 'inspector');
   await page.goto('/units');
   const table = page.getByRole('table', { name: 'Units' });
   await expect(table.getByRole('link', { name: UNIT })).toBeVisible();
@@ -181,7 +172,7 @@ test('the roster filters and opens a unit; screenshots at tablet and phone size'
 });
 
 test('the inspector previews the F on the other end without changing the unit', async ({ page }) => {
-  await signInAs(page, 'inspector');
+  await signIn(page, 'inspector');
   await openUnit(page);
   const drawing = await drawingOf(page, 'six_axle_road');
   const motors = motorsFromShortHood(drawing);
@@ -197,7 +188,7 @@ test('the inspector previews the F on the other end without changing the unit', 
 });
 
 test('admin: tap a traction motor, move the F, read the same motor’s new number, move it back', async ({ page }) => {
-  await signInAs(page, 'admin');
+  await signIn(page, 'admin');
   await openUnit(page);
   await expect(page.locator('main header')).toContainText('F on short hood');
   const drawing = await drawingOf(page, 'six_axle_road');
@@ -234,7 +225,7 @@ test('admin: tap a traction motor, move the F, read the same motor’s new numbe
 });
 
 test('admin: the same by keyboard — Tab to the motor, Enter, move the F, read the live region', async ({ page }) => {
-  await signInAs(page, 'admin');
+  await signIn(page, 'admin');
   await openUnit(page);
   await surface(page).focus();
   const status = canvasStatus(page);

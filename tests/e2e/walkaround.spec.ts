@@ -1,34 +1,9 @@
 import { expect, test, type Page } from '@playwright/test';
-import { DEMO_PASSWORD } from './helpers';
+import { DEMO_PASSWORD, freePointOf, signIn } from './helpers';
 
 // An 8×8 grey PNG; the server decides its type by its bytes.
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAgAAAAICAIAAABLbSncAAAACXBIWXMAAAPoAAAD6AG1e1JrAAAAD0lEQVQImWNowAEYhpYEAILzYAEeEbvlAAAAAElFTkSuQmCC', 'base64');
 const UNIT = 'HRL 2201'; // four-axle road unit, Marlow Yard, F on the short hood in the record
-
-/** Signs in without relying on the name badge, which the shell only shows on wide screens. */
-async function signInAs(page: Page, role: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${role}@demo.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in')).toBeAttached();
-}
-
-/** A point inside the part's outline that no other outlined part covers, so a tap there hits that part. */
-async function freePointOf(page: Page, instanceId: string) {
-  return page.evaluate((id) => {
-    const rects = [...document.querySelectorAll<SVGRectElement>('[data-testid=area-outlines] rect')].map((r) => ({ id: r.dataset.instance, b: r.getBoundingClientRect() }));
-    const me = rects.find((r) => r.id === id)!.b;
-    const others = rects.filter((r) => r.id !== id).map((r) => r.b);
-    for (let fy = 0.9; fy > 0.1; fy -= 0.05)
-      for (let fx = 0.1; fx < 0.9; fx += 0.05) {
-        const x = me.left + me.width * fx;
-        const y = me.top + me.height * fy;
-        if (!others.some((o) => x >= o.left - 4 && x <= o.right + 4 && y >= o.top - 4 && y <= o.bottom + 4)) return { x, y };
-      }
-    return { x: me.left + me.width / 2, y: me.top + me.height * 0.85 };
-  }, instanceId);
-}
 
 /** Whether a canvas pixel near (x, y) has the federal pin colour (deep red, #9f1d1d in the day theme). */
 async function redPinNear(page: Page, x: number, y: number) {
@@ -80,7 +55,7 @@ test('an inspector walks a unit, pins a gauged finding with a photo, signs, prin
   test.setTimeout(240_000);
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await signInAs(page, 'inspector');
+  await signIn(page, 'inspector');
 
   // Start: pick the unit by road number, daily, confirm the F.
   await page.goto('/walkaround');
@@ -219,7 +194,7 @@ test('an inspector walks a unit, pins a gauged finding with a photo, signs, prin
   // The foreman sets destination and restrictions on the tag.
   const foremanCtx = await browser.newContext();
   const foreman = await foremanCtx.newPage();
-  await signInAs(foreman, 'foreman');
+  await signIn(foreman, 'foreman');
   await foreman.goto(tagUrl);
   await foreman.getByLabel(/Destination/).fill('Marlow Yard shop, track 3');
   await foreman.getByLabel('Movement restrictions').fill('Trailing position only, 10 mph');
@@ -231,7 +206,7 @@ test('an inspector walks a unit, pins a gauged finding with a photo, signs, prin
   // The admin sees the foreman's mail at the fake SMTP server.
   const adminCtx = await browser.newContext();
   const admin = await adminCtx.newPage();
-  await signInAs(admin, 'admin');
+  await signIn(admin, 'admin');
   await expect
     .poll(
       async () => {
@@ -259,7 +234,7 @@ test('an inspector walks a unit, pins a gauged finding with a photo, signs, prin
 
 test('the walkaround start screen at phone size', async ({ page }) => {
   await page.setViewportSize({ width: 390, height: 844 });
-  await signInAs(page, 'inspector');
+  await signIn(page, 'inspector');
   await page.goto('/walkaround');
   await page.getByLabel('Road number').fill('4103');
   await page.getByRole('radio', { name: /HRL 4103/ }).click();
