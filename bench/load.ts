@@ -79,7 +79,7 @@ async function main() {
     let n = 0;
     type Ctx = { i?: number; t?: number };
     const mine = (c: Ctx) => inspections[c.i ?? 0];
-    const kinds: { name: string; method: 'GET' | 'POST'; path(c: Ctx): string; body?(): Record<string, string> }[] = [
+    const kinds: { name: string; method: 'GET' | 'POST'; path(c: Ctx): string }[] = [
       { name: 'GET /api/units', method: 'GET', path: () => '/api/units' },
       // A tablet that has walked a unit before holds its layout and revalidates it (If-None-Match → 304), as a browser does.
       { name: 'GET /api/units/:id/layout (revalidated)', method: 'GET', path: (c) => `/api/units/${mine(c).unitId}/layout` },

@@ -13,6 +13,11 @@ export function unitsService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
   // Layouts depend only on (unit type, front end): derive each once.
   const layouts = new Map<string, UnitLayout>();
   const layoutJsons = new Map<string, FrozenJson>();
+  const drawing = (typeKey: string): Drawing => {
+    const d = drawings.get(typeKey);
+    if (!d) throw notFound('Unit type');
+    return d;
+  };
   const drawingJsons = new Map<string, FrozenJson>();
   const layoutFor = (typeKey: string, frontEnd: FrontEnd): UnitLayout => {
     const k = `${typeKey}:${frontEnd}`;
@@ -36,18 +41,10 @@ export function unitsService(db: Db, drawings: ReadonlyMap<string, Drawing>) {
     },
     drawingJson(typeKey: string): FrozenJson {
       let j = drawingJsons.get(typeKey);
-      if (!j) {
-        const d = drawings.get(typeKey);
-        if (!d) throw notFound('Unit type');
-        drawingJsons.set(typeKey, (j = frozenJson(d)));
-      }
+      if (!j) drawingJsons.set(typeKey, (j = frozenJson(drawing(typeKey))));
       return j;
     },
-    drawing(typeKey: string): Drawing {
-      const d = drawings.get(typeKey);
-      if (!d) throw notFound('Unit type');
-      return d;
-    },
+    drawing,
     list: (f: UnitFilter) => unitsRepository(db).list(f),
     async get(id: string) {
       const u = await unitsRepository(db).get(id);

@@ -160,8 +160,8 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
   const assertOwner = (insp: InspectionRow, person: Person) => {
     if (insp.inspectorId !== person.id) throw forbidden('Only the inspector who started this inspection can change it');
   };
-  const assertOpen = (insp: InspectionRow) => {
-    if (insp.status !== 'in_progress') throw new AppError('conflict', 'This record is signed and can no longer change; add a correction instead');
+  const assertOpen = (status: string | null) => {
+    if (status !== 'in_progress') throw new AppError('conflict', 'This record is signed and can no longer change; add a correction instead');
   };
 
   /** Pins a finding in one transaction: the pin, its event, coverage, the tag and the foremen's mail. */
@@ -175,7 +175,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
     if (!ctx) throw notFound('Inspection');
     const { insp, unit } = ctx;
     assertOwner(insp, person);
-    assertOpen(insp);
+    assertOpen(insp.status);
     const drawing = drawingOf(unit.unitTypeKey);
     const view = drawing.views.find((v) => v.key === body.view);
     if (!view) throw new AppError('validation', `This unit type has no ${body.view} view`, { view: 'Not a view of this unit type' });
@@ -403,7 +403,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
     async setCoverage(person: Person, ip: string, id: string, body: z.infer<typeof CoverageBody>) {
       const insp = await load(id);
       assertOwner(insp, person);
-      assertOpen(insp);
+      assertOpen(insp.status);
       const routine = insp.routineSnapshot as Routine;
       const inRoutine = new Set(routine.areas.flatMap((a) => a.instanceIds));
       const unknown = body.instanceIds.filter((i) => !inRoutine.has(i));
@@ -411,7 +411,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       if (body.state === 'not_applicable' && !body.reason) throw new AppError('validation', 'Say why the part does not apply', { reason: 'A reason is required' });
       await db.transaction(async (tx) => {
         const r = walkaroundRepository(tx);
-        if ((await r.lockAndTouch(id)) !== 'in_progress') assertOpen({ ...insp, status: 'signed' });
+        assertOpen(await r.lockAndTouch(id));
         const live = (await r.findingsOfInspection(id)).filter((f) => f.state !== 'voided');
         // A part with a live finding stays "finding": passing it would hide the defect.
         const rows = body.instanceIds
