@@ -79,7 +79,7 @@ async function main() {
     let n = 0;
     type Ctx = { i?: number; t?: number };
     const mine = (c: Ctx) => inspections[c.i ?? 0];
-    const kinds: { name: string; method: 'GET' | 'POST'; path(c: Ctx): string }[] = [
+    const allKinds: { name: string; method: 'GET' | 'POST'; path(c: Ctx): string }[] = [
       { name: 'GET /api/units', method: 'GET', path: () => '/api/units' },
       // A tablet that has walked a unit before holds its layout and revalidates it (If-None-Match → 304), as a browser does.
       { name: 'GET /api/units/:id/layout (revalidated)', method: 'GET', path: (c) => `/api/units/${mine(c).unitId}/layout` },
@@ -87,6 +87,9 @@ async function main() {
       { name: 'GET /api/inspections/:id', method: 'GET', path: (c) => `/api/inspections/${mine(c).id}` },
       { name: 'POST /api/inspections/:id/findings', method: 'POST', path: (c) => `/api/inspections/${mine(c).id}/findings` },
     ];
+    // BENCH_ONLY=layout,units sends only the kinds whose names contain one of the words, to cost each alone.
+    const only = process.env.BENCH_ONLY?.split(',').filter(Boolean);
+    const kinds = only ? allKinds.filter((k) => only.some((w) => k.name.includes(w))) : allKinds;
     // Latency per kind of request, for finding where the time goes (a connection sends one request at a time).
     const samples = new Map<string, { at: number; ms: number }[]>(kinds.map((k) => [k.name, []]));
     const bytes = new Map<string, number>();
@@ -119,8 +122,16 @@ async function main() {
     // One run; the first WARMUP seconds are not counted (the server opens its database connections and
     // compiles its code paths, and all 50 connections start at once, which a running yard never sees).
     // Errors are counted over the whole run, warm-up included.
+    // The worker folds what pins leave waiting for the hot spots summary every few seconds (server/app.ts);
+    // the bench runs it the same way, so its cost is in the figures.
+    const folder = new pg.Client({ connectionString: url });
+    await folder.connect();
+    let folds = 0;
+    const fold = setInterval(process.env.BENCH_NO_FOLD ? () => {} : () => void folder.query('select hot_spots_fold()').then(() => folds++), 3000);
     const t0 = performance.now();
     const result = await mix(WARMUP + DURATION);
+    clearInterval(fold);
+    await folder.end();
     const counted = (xs: { at: number; ms: number }[]) => xs.filter((x) => x.at >= t0 + WARMUP * 1000).map((x) => x.ms);
     const all = [...samples.values()].flatMap(counted);
     // 304 Not Modified is the answer a revalidating tablet wants, not an error.
@@ -130,7 +141,7 @@ async function main() {
     console.log(`requests/s: ${(all.length / DURATION).toFixed(0)}  (counted ${all.length}; ${result.requests.total} in all)`);
     console.log(`latency p50: ${pct(all, 0.5).toFixed(0)} ms  p99: ${pct(all, 0.99).toFixed(0)} ms  (goal p99 < 100 ms)   [whole run with the warm-up: p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms]`);
     console.log(`errors: ${errors} (connection ${result.errors}, timeouts ${result.timeouts}, non-2xx other than 304 ${result.non2xx - revalidated})  (goal 0)`);
-    console.log(`findings written: ${n}, over ${pins.length} parts of the plan view`);
+    console.log(`findings written: ${n}, over ${pins.length} parts of the plan view; the hot spots summary folded ${folds} times`);
     console.log('by request (counted):');
     for (const [name, xs] of samples) {
       const c = counted(xs);

@@ -16,6 +16,7 @@ import { idempotency } from './http/idempotency';
 import { mountRoutes, type RouteDef } from './http/routes';
 import { checksRoutes } from './modules/checks/routes';
 import { dueRoutes } from './modules/due/routes';
+import { foldSummary } from './modules/hot-spots/repository';
 import { hotSpotsRoutes } from './modules/hot-spots/routes';
 import { labRoutes } from './modules/lab/routes';
 import { outboxRoutes } from './modules/outbox/routes';
@@ -23,6 +24,7 @@ import { repairsRoutes } from './modules/repairs/routes';
 import { walkaroundRoutes } from './modules/walkaround/routes';
 import { authRoutes } from './modules/auth/routes';
 import { toPerson } from './modules/auth/service';
+import { cacheSessions } from './modules/auth/session-cache';
 import { peopleRoutes } from './modules/people/routes';
 import { settingsRoutes } from './modules/settings/routes';
 import { unitsRoutes } from './modules/units/routes';
@@ -85,6 +87,8 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
   const PgStore = connectPgSimple(session);
   // A session lasts one 12-hour shift from sign-in; not touching it on every request saves a write per request.
   const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, disableTouch: true, pruneSessionInterval: config.NODE_ENV === 'test' ? false : 900 });
+  const sessions = cacheSessions(store, config.PERSON_CACHE_MS);
+  deps.services.signedIn.onForget((id) => sessions.forgetPerson(id));
   app.use(
     '/api',
     session({
@@ -174,6 +178,7 @@ export function createApp(opts: { db: Db; pool: pg.Pool; config: Config; drawing
           if (busy) return;
           busy = true;
           try {
+            await foldSummary(pool);
             await deps.services.due.runDigest();
             await deps.services.outbox.runOnce();
           } catch (e) {

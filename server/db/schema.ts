@@ -3,6 +3,7 @@ import {
   bigserial,
   boolean,
   check,
+  customType,
   date,
   doublePrecision,
   index,
@@ -205,6 +206,8 @@ export const inspections = pgTable(
     index('inspections_inspector_status').on(t.inspectorId, t.status),
     index('inspections_started').on(t.startedAt),
     uniqueIndex('inspections_idem').on(t.inspectorId, t.idempotencyKey),
+    // An inspection's view lists its corrections; without this every view read the whole table.
+    index('inspections_corrects').on(t.correctsId).where(sql`${t.correctsId} is not null`),
   ],
 );
 
@@ -364,6 +367,19 @@ export const hotSpotsLabelUnits = pgTable(
   },
   (t) => [primaryKey({ name: 'hot_spots_label_units_pk', columns: [t.unitTypeKey, t.label, t.unitId] })],
 );
+
+/**
+ * Changes to the summary that single writes (a pin, a repair, a void) leave for the next fold
+ * (drizzle/0007): appending here never waits on another writer, where adding to the shared summary
+ * rows made every pin on the same part and month take turns. The hot spots screen folds before it
+ * reads and the worker folds every few seconds, so the answer is the same as without it.
+ */
+const hotSpotsChanges = customType<{ data: string; driverData: string }>({ dataType: () => 'hot_spots_change[]' });
+export const hotSpotsPending = pgTable('hot_spots_pending', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  removed: hotSpotsChanges('removed'),
+  added: hotSpotsChanges('added'),
+});
 
 export const photos = pgTable(
   'photos',

@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { priorRepairs } from '../../server/modules/hot-spots/repository';
 import { findRepeats } from '../../shared/hot-spots/repeats';
@@ -41,10 +42,14 @@ describe('the repeat day count kept on each finding', () => {
   });
 
   it('gives the same numbers when computed one finding at a time, as a new pin is', async () => {
-    const before = new Map((await all()).map((r) => [r.id, r.days]));
-    await t.pool.query(`update findings set prior_repair_days = null`);
-    for (const id of before.keys()) await priorRepairs(t.db).fill(id);
-    const after = new Map((await all()).map((r) => [r.id, r.days]));
+    const rows = await all();
+    const before = new Map(rows.map((r) => [r.id, r.days]));
+    const after = new Map<string, number | null>();
+    // The expression a pin's insert carries, evaluated at each finding's own instant.
+    for (const r of rows) {
+      const q = await t.db.execute<{ days: number | null }>(sql`select ${priorRepairs(t.db).onInsert(r, sql`${r.createdAt.toISOString()}::timestamptz`)} as days`);
+      after.set(r.id, q.rows[0].days);
+    }
     expect(after).toEqual(before);
   });
 });

@@ -94,6 +94,8 @@ async function differencesFromRebuild() {
   const c = await t.pool.connect();
   try {
     await c.query('begin');
+    // Single writes leave their changes in hot_spots_pending until a fold (the screen folds before reading).
+    await c.query('select hot_spots_fold()');
     for (const s of SUMMARY) await c.query(`create temp table kept_${s} on commit drop as select * from ${s}`);
     await c.query('select hot_spots_summary_rebuild()');
     const out: Record<string, { kept: number; differing: number }> = {};
@@ -195,6 +197,28 @@ describe('the hot spots summary', () => {
     expect(voids.map((v) => v.status)).toEqual([200, 200]);
     await expectSummaryKept();
     await expectScreensAgree();
+  });
+
+  it('takes a pin while the summary rows it adds to are locked, and folds it in before the screen reads', async () => {
+    // Another transaction holds this unit type's summary rows (as a fold or a bulk write would): the pin only
+    // appends to hot_spots_pending, so it neither waits nor makes the next pin on the same part wait.
+    const hold = await t.pool.connect();
+    try {
+      await hold.query('begin');
+      const held = await hold.query(`select 1 from hot_spots_by_label where unit_type_key = 'four_axle_road' and month = date_trunc('month', now() at time zone $1)::date for update`, [zone]);
+      expect(held.rowCount).toBeGreaterThan(0); // the pins above are this month's
+      await hold.query(`select 1 from hot_spots_by_cell where unit_type_key = 'four_axle_road' for update`);
+      await hold.query(`select 1 from hot_spots_by_unit where unit_type_key = 'four_axle_road' for update`);
+      const pinned = await Promise.all(['HRL 2201', 'HRL 2202'].map((u) => pinFinding(inspector, u, motor('Weeping while the summary is held'))));
+      expect(pinned.map((p) => p.finding.state)).toEqual(['open', 'open']);
+      expect((await t.pool.query('select count(*)::int as n from hot_spots_pending')).rows[0].n).toBeGreaterThanOrEqual(2);
+    } finally {
+      await hold.query('rollback');
+      hold.release();
+    }
+    await expectScreensAgree();
+    expect((await t.pool.query('select count(*)::int as n from hot_spots_pending')).rows[0].n).toBe(0);
+    await expectSummaryKept();
   });
 
   it('follows rows inserted at month edges in bulk, moved across a month edge and a cell, relabelled, and deleted', async () => {

@@ -52,10 +52,28 @@ describe('the signed-in person reused between requests', () => {
     // Another process changing the row: this one keeps its copy (PERSON_CACHE_MS is a minute here).
     await t.db.execute(sql`update people set name = 'Renamed Elsewhere' where email = 'foreman@demo.example'`);
     expect((await foreman.get('/api/auth/me')).body.name).not.toBe('Renamed Elsewhere');
-    // Deactivating deletes the stored sessions, which are read fresh on every request.
+    // Deactivating deletes the stored sessions and forgets this process's copies of them.
     const admin = await t.as('admin');
     const f = (await admin.get('/api/people')).body.items.find((p: any) => p.email === 'foreman@demo.example');
     expect((await admin.patch(`/api/people/${f.id}`, { version: f.version, active: false })).status).toBe(200);
     expect((await foreman.get('/api/auth/me')).status).toBe(401);
+  });
+
+  it('ends a session signed out through this process at once for every tablet holding it, even with a long reuse time', async () => {
+    const a = await t.as('inspector');
+    const b = t.client();
+    b.cookie = a.cookie; // the same session on a second tablet
+    expect((await b.get('/api/auth/me')).status).toBe(200);
+    expect((await a.post('/api/auth/logout', {})).status).toBeLessThan(300);
+    expect((await b.get('/api/auth/me')).status).toBe(401);
+    // Sign-out everywhere: a third tablet's session, already read and kept, ends too.
+    const c = await t.as('inspector');
+    const d = t.client();
+    d.cookie = c.cookie;
+    const e = await t.as('inspector');
+    expect((await e.get('/api/auth/me')).status).toBe(200);
+    expect((await c.post('/api/auth/logout-everywhere', {})).status).toBeLessThan(300);
+    expect((await d.get('/api/auth/me')).status).toBe(401);
+    expect((await e.get('/api/auth/me')).status).toBe(401);
   });
 });

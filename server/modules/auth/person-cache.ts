@@ -12,6 +12,7 @@ type PersonRow = NonNullable<Awaited<ReturnType<ReturnType<typeof authRepository
 export function personCache(db: Db, ttlMs = 2000) {
   const repo = authRepository(db);
   const rows = new Map<string, { row: PersonRow | null; until: number }>();
+  const listeners: ((id: string) => void)[] = [];
   return {
     async get(id: string): Promise<PersonRow | null> {
       const now = Date.now();
@@ -24,6 +25,11 @@ export function personCache(db: Db, ttlMs = 2000) {
     },
     forget(id: string) {
       rows.delete(id);
+      for (const fn of listeners) fn(id);
+    },
+    /** Also forget something else kept per person (the session cache) whenever a person is forgotten. */
+    onForget(fn: (id: string) => void) {
+      listeners.push(fn);
     },
   };
 }

@@ -1,4 +1,4 @@
-import { sql } from 'drizzle-orm';
+import { sql, type SQL } from 'drizzle-orm';
 import type pg from 'pg';
 import type { DbOrTx } from '../../db/client';
 import type { CellCount } from '../../../shared/hot-spots/grid';
@@ -279,6 +279,11 @@ const SUMMARY_SCREEN = `
       )
       ${screenSelect({ type: '$1', t0: '$2::timestamptz', t1: '$3::timestamptz', yards: null })}`;
 
+/** Folds the changes single writes left in hot_spots_pending into the summary (drizzle/0007). */
+export async function foldSummary(pool: pg.Pool): Promise<void> {
+  await pool.query('select hot_spots_fold()');
+}
+
 export const hotSpotsRepository = (pool: pg.Pool, opts: { summary?: boolean } = {}) => ({
   /** Settings the statements need; the service caches them. */
   async settings(): Promise<Settings | null> {
@@ -292,6 +297,8 @@ export const hotSpotsRepository = (pool: pg.Pool, opts: { summary?: boolean } = 
    */
   async aggregate(f: HotSpotFilter, cellIn: number, s: Settings, otherTypes: string[]): Promise<Aggregate> {
     if (opts.summary !== false && summaryAnswers(f, cellIn)) {
+      // What single writes left waiting goes into the summary first, so the answer counts every committed finding.
+      await foldSummary(pool);
       const values = [f.unitType, f.start, f.end, s.timeZone, s.repeatWindowDays, cellIn, otherTypes];
       return inTx(pool, async (c) => (await c.query<Aggregate>(SUMMARY_SCREEN, values)).rows[0]);
     }
@@ -414,6 +421,15 @@ export const REFRESH_ALL_PRIOR_REPAIR_DAYS = `
  */
 export const REBUILD_HOT_SPOTS_SUMMARY = `select hot_spots_summary_rebuild()`;
 
+/** The key whose writes take turns: a unit's physical part and a defect type. */
+export interface PinKey {
+  unitId: string;
+  instanceId: string;
+  defectType: string;
+}
+/** The key's turn (the lock `lockKey` takes), as an expression for a statement that needs it before a new finding exists. */
+export const pinTurn = (k: PinKey) => sql`pg_advisory_xact_lock(4242006, hashtext(${k.unitId}::uuid::text || '/' || ${k.instanceId}::text || '/' || ${k.defectType}::text))`;
+
 export const priorRepairs = (db: DbOrTx) => {
   const self = {
     /**
@@ -425,11 +441,14 @@ export const priorRepairs = (db: DbOrTx) => {
       await db.execute(sql`
         select pg_advisory_xact_lock(4242006, hashtext(unit_id::text || '/' || instance_id || '/' || defect_type)) from findings where id = ${findingId}`);
     },
-    /** A new finding (walkaround): its own number, in the transaction that inserts it. */
-    async fill(findingId: string) {
-      await self.lockKey(findingId);
-      await db.execute(sql`update findings f set prior_repair_days = ${sql.raw(PRIOR_REPAIR_DAYS('f'))} where f.id = ${findingId}`);
-    },
+    /** A new finding (walkaround): its own number, read as it is inserted; its key's turn (`turn`) is taken first, in an earlier statement. */
+    // `at` is the finding's created_at: the transaction's now(), the column's default.
+    onInsert: (k: PinKey, at: SQL = sql`now()`) => sql`(
+      select (${at} at time zone z.tz)::date - (max(p.repaired_at) at time zone z.tz)::date
+        from findings p, ${sql.raw(ZONE)} z
+       where p.unit_id = ${k.unitId} and p.instance_id = ${k.instanceId} and p.defect_type = ${k.defectType}
+         and p.state <> 'voided' and p.repaired_at <= ${at}
+       group by z.tz)`,
     /** A finding voided or repaired: the findings of its key found since may gain or lose it as their precedent. */
     async refreshAfter(findingId: string) {
       await self.lockKey(findingId);

@@ -1,5 +1,7 @@
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import type { PgInsertValue } from 'drizzle-orm/pg-core';
 import type { DbOrTx } from '../../db/client';
+import { pinTurn, type PinKey } from '../hot-spots/repository';
 import {
   findingEvents,
   findings,
@@ -18,6 +20,16 @@ export type FindingRow = typeof findings.$inferSelect;
 export type InspectionRow = typeof inspections.$inferSelect;
 
 /** Everything the walkaround reads and writes; the only place its SQL lives. */
+export interface ViewParts {
+  unit: { id: string; roadNumber: string; unitTypeKey: string; frontEnd: string; yardName: string | null };
+  inspectorName: string;
+  railroad: { name: string | null; reportingMark: string | null; timeZone: string | null };
+  items: { instanceId: string; state: string; reason: string | null }[];
+  photos: { id: string; findingId: string }[];
+  /** signedAt as PostgreSQL writes a timestamptz in JSON. */
+  corrections: { id: string; note: string | null; signedAt: string | null; by: string }[];
+}
+
 export const walkaroundRepository = (db: DbOrTx) => ({
   async settings() {
     const [s] = await db.select().from(railroadSettings).limit(1);
@@ -46,22 +58,25 @@ export const walkaroundRepository = (db: DbOrTx) => ({
     return row ? { insp: row.insp, unit: { ...row.unit, yardName: row.yardName }, timeZone: row.timeZone ?? 'UTC' } : null;
   },
   /**
-   * A new finding's trail in one statement: its "created" event, its part marked as a finding in the
-   * coverage, and the audit entry (inside the caller's transaction, like the finding itself).
+   * A new finding and its trail in one statement: the finding, its "created" event, its part marked as a
+   * finding in the coverage, and the audit entry (inside the caller's transaction). The id is chosen by
+   * the caller so the trail can name it; the foreign keys are checked at the end of the statement.
    */
-  async findingTrail(t: { findingId: string; inspectionId: string; instanceId: string; actorId: string; event: unknown; ip: string | null; action: string; audit: unknown }) {
-    await db.execute(sql`
-      with ev as (
-        insert into finding_events (finding_id, kind, to_state, actor_id, details)
-        values (${t.findingId}, 'created', 'open', ${t.actorId}, ${JSON.stringify(t.event)}::jsonb)
-      ), item as (
-        insert into inspection_items (inspection_id, instance_id, state, reason, updated_at)
-        values (${t.inspectionId}, ${t.instanceId}, 'finding', null, now())
-        on conflict (inspection_id, instance_id) do update set state = 'finding', reason = null, updated_at = now()
-      )
+  async insertFindingWithTrail(v: PgInsertValue<typeof findings> & { id: string }, t: { inspectionId: string; instanceId: string; actorId: string; event: unknown; ip: string | null; action: string; audit: unknown }) {
+    const ev = db.$with('ev', {}).as(sql`
+      insert into finding_events (finding_id, kind, to_state, actor_id, details)
+      values (${v.id}, 'created', 'open', ${t.actorId}, ${JSON.stringify(t.event)}::jsonb)`);
+    const item = db.$with('item', {}).as(sql`
+      insert into inspection_items (inspection_id, instance_id, state, reason, updated_at)
+      values (${t.inspectionId}, ${t.instanceId}, 'finding', null, now())
+      on conflict (inspection_id, instance_id) do update set state = 'finding', reason = null, updated_at = now()`);
+    const au = db.$with('au', {}).as(sql`
       insert into audit_log (actor_id, action, entity, entity_id, ip, details)
-      values (${t.actorId}, ${t.action}, 'finding', ${t.findingId}, ${t.ip}, ${JSON.stringify(t.audit)}::jsonb)`);
+      values (${t.actorId}, ${t.action}, 'finding', ${v.id}, ${t.ip}, ${JSON.stringify(t.audit)}::jsonb)`);
+    const [r] = await db.with(ev, item, au).insert(findings).values(v).returning();
+    return r;
   },
+
   async lockUnit(id: string) {
     await db.execute(sql`select id from units where id = ${id} for update`);
   },
@@ -114,6 +129,13 @@ export const walkaroundRepository = (db: DbOrTx) => ({
     const r = await db.execute<{ status: string }>(sql`update inspections set version = version + 1 where id = ${id} returning status`);
     return r.rows[0]?.status ?? null;
   },
+  /** lockAndTouch for a new pin, which also takes its part's turn first (see priorRepairs) in the same round trip. */
+  async lockForPin(id: string, key: PinKey) {
+    const r = await db.execute<{ status: string }>(sql`
+      with turn as materialized (select ${pinTurn(key)})
+      update inspections i set version = i.version + 1 from turn where i.id = ${id} returning i.status`);
+    return r.rows[0]?.status ?? null;
+  },
   async listInspections(f: { inspectorId?: string; unitId?: string; status?: string; limit: number }) {
     return db
       .select({
@@ -140,13 +162,29 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       .orderBy(sql`${inspections.startedAt} desc`)
       .limit(f.limit);
   },
-  async corrections(id: string) {
-    return db
-      .select({ id: inspections.id, note: inspections.correctionNote, signedAt: inspections.signedAt, by: people.name })
-      .from(inspections)
-      .innerJoin(people, eq(people.id, inspections.inspectorId))
-      .where(eq(inspections.correctsId, id))
-      .orderBy(asc(inspections.signedAt));
+
+  /**
+   * Everything an inspection's view shows besides the record and its findings, in one statement: the unit
+   * and yard, the inspector's name, the railroad, the coverage marks, the photos and the corrections.
+   */
+  async viewParts(inspectionId: string) {
+    const r = await db.execute<ViewParts & Record<string, unknown>>(sql`
+      select json_build_object('id', u.id, 'roadNumber', u.road_number, 'unitTypeKey', u.unit_type_key, 'frontEnd', u.front_end, 'yardName', y.name) as unit,
+             coalesce(pe.name, '') as "inspectorName",
+             json_build_object('name', s.name, 'reportingMark', s.reporting_mark, 'timeZone', s.time_zone) as railroad,
+             (select coalesce(json_agg(json_build_object('instanceId', it.instance_id, 'state', it.state, 'reason', it.reason)), '[]')
+                from inspection_items it where it.inspection_id = i.id) as items,
+             (select coalesce(json_agg(json_build_object('id', p.id, 'findingId', p.finding_id) order by p.created_at), '[]')
+                from photos p join findings f on f.id = p.finding_id where f.inspection_id = i.id) as photos,
+             (select coalesce(json_agg(json_build_object('id', c.id, 'note', c.correction_note, 'signedAt', c.signed_at, 'by', cp.name) order by c.signed_at), '[]')
+                from inspections c join people cp on cp.id = c.inspector_id where c.corrects_id = i.id) as corrections
+        from inspections i
+        join units u on u.id = i.unit_id
+        left join yards y on y.id = u.yard_id
+        left join people pe on pe.id = i.inspector_id
+        left join railroad_settings s on s.id = 1
+       where i.id = ${inspectionId}`);
+    return r.rows[0] ?? null;
   },
   async items(inspectionId: string) {
     return db
@@ -176,17 +214,7 @@ export const walkaroundRepository = (db: DbOrTx) => ({
     const r = await db.select().from(findings).where(eq(findings.id, id)).limit(1);
     return r[0] ?? null;
   },
-  async insertFinding(v: typeof findings.$inferInsert) {
-    const [r] = await db.insert(findings).values(v).returning();
-    return r;
-  },
-  /** The photos of every finding of an inspection, in one query beside the findings'. */
-  async photosOfInspection(inspectionId: string) {
-    const r = await db.execute<{ id: string; findingId: string }>(
-      sql`select p.id, p.finding_id as "findingId" from photos p join findings f on f.id = p.finding_id where f.inspection_id = ${inspectionId} order by p.created_at`,
-    );
-    return r.rows;
-  },
+
   async photosOf(findingIds: string[]) {
     if (!findingIds.length) return [];
     return db.select({ id: photos.id, findingId: photos.findingId }).from(photos).where(inArray(photos.findingId, findingIds)).orderBy(asc(photos.createdAt));
@@ -219,19 +247,7 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       .where(and(eq(findings.unitId, unitId), eq(findings.weight, 'federal'), inArray(findings.state, ['open', 'in_repair', 'repaired'])))
       .orderBy(asc(findings.createdAt));
   },
-  /** The unit (with its yard), the inspector's name and the railroad, for showing an inspection: one query. */
-  async viewHeader(unitId: string, inspectorId: string) {
-    const r = await db
-      .select({ unit: units, yardName: yards.name, inspectorName: people.name, railroad: { name: railroadSettings.name, reportingMark: railroadSettings.reportingMark, timeZone: railroadSettings.timeZone } })
-      .from(units)
-      .leftJoin(yards, eq(yards.id, units.yardId))
-      .leftJoin(people, eq(people.id, inspectorId))
-      .leftJoin(railroadSettings, eq(railroadSettings.id, 1))
-      .where(eq(units.id, unitId))
-      .limit(1);
-    const row = r[0];
-    return row ? { unit: { ...row.unit, yardName: row.yardName }, inspectorName: row.inspectorName ?? '', railroad: row.railroad } : null;
-  },
+
   async personName(id: string) {
     const r = await db.select({ name: people.name }).from(people).where(eq(people.id, id)).limit(1);
     return r[0]?.name ?? '';

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { z } from 'zod';
 import { runCheck, type CheckKey } from '../../../shared/api/checks';
 import type { CoverageBody, FindingBody, FindingView, InspectionView, Routine, RoutineBody, StartInspectionBody } from '../../../shared/api/walkaround';
@@ -113,14 +114,8 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
 
   async function view(insp: InspectionRow): Promise<InspectionView> {
     const repo = walkaroundRepository(db);
-    const [header, items, fs, photoRows, corrections] = await Promise.all([
-      repo.viewHeader(insp.unitId, insp.inspectorId),
-      repo.items(insp.id),
-      repo.findingsOfInspection(insp.id),
-      repo.photosOfInspection(insp.id),
-      repo.corrections(insp.id),
-    ]);
-    const { unit, inspectorName, railroad: settings } = header!;
+    const [parts, fs] = await Promise.all([repo.viewParts(insp.id), repo.findingsOfInspection(insp.id)]);
+    const { unit, inspectorName, railroad: settings, items, photos: photoRows, corrections } = parts!;
     const photosBy = new Map<string, string[]>();
     for (const p of photoRows) photosBy.set(p.findingId, [...(photosBy.get(p.findingId) ?? []), p.id]);
     const routine = insp.routineSnapshot as Routine;
@@ -145,7 +140,7 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
       items: effectiveItems,
       coverage: coverageOf(routine.areas, effectiveItems),
       findings: fs.map((f) => toFindingView(f, photosBy.get(f.id) ?? [])),
-      corrections: corrections.map((c) => ({ id: c.id, note: c.note ?? '', signedAt: c.signedAt?.toISOString() ?? '', by: c.by })),
+      corrections: corrections.map((c) => ({ id: c.id, note: c.note ?? '', signedAt: c.signedAt ? new Date(c.signedAt).toISOString() : '', by: c.by })),
       correctsId: insp.correctsId,
       railroad: { name: settings?.name ?? '', reportingMark: settings?.reportingMark ?? '', timeZone: settings?.timeZone ?? 'UTC' },
       version: insp.version,
@@ -167,11 +162,9 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
   /** Pins a finding in one transaction: the pin, its event, coverage, the tag and the foremen's mail. */
   async function addFinding(person: Person, ip: string, inspectionId: string, body: FindingBody, opts: { systemFinding?: boolean } = {}) {
     const repo = walkaroundRepository(db);
-    if (body.idempotencyKey) {
-      const prior = await repo.findingByKey(person.id, body.idempotencyKey);
-      if (prior) return { replayed: true, finding: toFindingView(prior, (await repo.photosOf([prior.id])).map((p) => p.id)) };
-    }
-    const ctx = await repo.findingContext(inspectionId);
+    // A replay is rare: its context is read beside it rather than after it.
+    const [prior, ctx] = await Promise.all([body.idempotencyKey ? repo.findingByKey(person.id, body.idempotencyKey) : null, repo.findingContext(inspectionId)]);
+    if (prior) return { replayed: true, finding: toFindingView(prior, (await repo.photosOf([prior.id])).map((p) => p.id)) };
     if (!ctx) throw notFound('Inspection');
     const { insp, unit } = ctx;
     assertOwner(insp, person);
@@ -233,9 +226,12 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
     try {
       const row = await db.transaction(async (tx) => {
         const r = walkaroundRepository(tx);
-        // One statement locks the record, bumps its version and says whether it is still open.
-        if ((await r.lockAndTouch(insp.id)) !== 'in_progress') throw new AppError('conflict', 'This record was signed meanwhile; the finding was not added to it');
-        const f = await r.insertFinding({
+        // One statement takes the part's turn, locks the record, bumps its version and says whether it is still open;
+        // a second writes the finding with its trail.
+        const key = { unitId: unit.id, instanceId: part.instanceId, defectType: defect.key };
+        if ((await r.lockForPin(insp.id, key)) !== 'in_progress') throw new AppError('conflict', 'This record was signed meanwhile; the finding was not added to it');
+        const f = await r.insertFindingWithTrail({
+          id: randomUUID(),
           inspectionId: insp.id,
           unitId: unit.id,
           unitTypeKey: unit.unitTypeKey,
@@ -264,11 +260,9 @@ export function walkaroundService(db: Db, deps: { drawings: ReadonlyMap<string, 
           note: body.note || null,
           createdBy: person.id,
           idempotencyKey: body.idempotencyKey ?? null,
-        });
-        // Hot spots' repeat rule reads the days since this part's last repair; kept at write time.
-        await priorRepairs(tx).fill(f.id);
-        await r.findingTrail({
-          findingId: f.id,
+          // Hot spots' repeat rule reads the days since this part's last repair; kept at write time.
+          priorRepairDays: priorRepairs(tx).onInsert(key),
+        }, {
           inspectionId: insp.id,
           instanceId: part.instanceId,
           actorId: person.id,

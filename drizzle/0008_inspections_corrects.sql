@@ -1,0 +1,1 @@
+CREATE INDEX "inspections_corrects" ON "inspections" USING btree ("corrects_id") WHERE "inspections"."corrects_id" is not null;
