@@ -292,7 +292,7 @@ export const findings = pgTable(
     check('findings_voided_reason', sql`${t.state} <> 'voided' or ${t.voidReason} is not null`),
     index('findings_unit_state').on(t.unitId, t.state),
     index('findings_state_weight').on(t.state, t.weight),
-    index('findings_type_created').on(t.unitTypeKey, t.createdAt),
+    // (unit type, created_at) lookups use findings_hot_spots_cover, which begins with the same two columns.
     index('findings_inspection').on(t.inspectionId),
     index('findings_repeat').on(t.unitId, t.instanceId, t.defectType, t.repairedAt),
     // Hot spots read a unit type's findings in a date range from this index alone (an index-only

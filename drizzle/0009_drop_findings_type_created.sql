@@ -1,0 +1,1 @@
+DROP INDEX "findings_type_created";
