@@ -17,21 +17,25 @@ pg.types.setTypeParser(1082, (v) => v);
  * Every parameterised statement a connection runs is kept prepared, named by a hash of its text:
  * PostgreSQL then plans a statement once per connection instead of on every request (planning was a third
  * of its work under load), and goes on planning each call only where that gives a better plan. The text
- * decides the name, so two statements never share one. Statements without parameters (DDL, scripts) are
- * sent as they are.
+ * decides the name, so two statements never share one. Statements without parameters (DDL, scripts), and
+ * those that select `*`, are sent as they are.
  */
 function preparing(client: pg.PoolClient) {
   const query = client.query.bind(client) as (...args: unknown[]) => unknown;
   (client as { query: unknown }).query = (config: unknown, values?: unknown, callback?: unknown) => {
-    if (typeof config === 'string' && Array.isArray(values) && values.length) return query({ text: config, values, name: statementName(config) }, callback);
+    if (typeof config === 'string' && Array.isArray(values) && values.length && keepable(config)) return query({ text: config, values, name: statementName(config) }, callback);
     if (config && typeof config === 'object' && !('submit' in config) && !('name' in config && config.name)) {
       const c = config as pg.QueryConfig;
       const v = Array.isArray(values) ? values : c.values;
-      if (typeof c.text === 'string' && v?.length) return query({ ...c, values: v, name: statementName(c.text) }, typeof values === 'function' ? values : callback);
+      if (typeof c.text === 'string' && v?.length && keepable(c.text)) return query({ ...c, values: v, name: statementName(c.text) }, typeof values === 'function' ? values : callback);
     }
     return query(config, values, callback);
   };
 }
+// A statement that selects `*` has the table's columns: kept prepared, it would fail on a running server once a
+// migration adds one ("cached plan must not change result type"), so it is planned on every call.
+const SELECTS_ALL = /(?:\bselect|\.)\s*\*/i;
+const keepable = (text: string) => !SELECTS_ALL.test(text);
 const names = new Map<string, string>();
 function statementName(text: string): string {
   let n = names.get(text);

@@ -32,6 +32,18 @@ describe('statements kept prepared on each connection', () => {
     expect((await prepared()).some((s) => s.includes('t_prepared'))).toBe(false);
   });
 
+  it('plans a statement that selects * on every call, so a column added by a migration never breaks it', async () => {
+    await pool.query('create table if not exists prepared_wide (n int)');
+    await pool.query('insert into prepared_wide values ($1)', [1]);
+    const text = 'select w.* from prepared_wide w where w.n = $1';
+    expect((await pool.query(text, [1])).rows).toEqual([{ n: 1 }]);
+    await pool.query('alter table prepared_wide add column note text');
+    expect((await pool.query(text, [1])).rows).toEqual([{ n: 1, note: null }]);
+    expect((await prepared()).some((s) => s.includes('prepared_wide w'))).toBe(false);
+    expect((await pool.query('select count(*)::int as n from prepared_wide where n = $1', [1])).rows).toEqual([{ n: 1 }]);
+    await pool.query('drop table prepared_wide');
+  });
+
   it('reports an error in a statement as before, and the connection goes on working', async () => {
     await expect(pool.query('select 1 / $1::int as n', [0])).rejects.toThrow(/division by zero/);
     expect((await pool.query('select 1 / $1::int as n', [1])).rows).toEqual([{ n: 1 }]);
