@@ -48,7 +48,9 @@ function statementName(text: string): string {
 }
 
 export function createDb(url: string, max = Number(process.env.DB_POOL_MAX ?? 20)): { db: Db; pool: pg.Pool } {
-  const pool = new pg.Pool({ connectionString: url, max });
+  // Connections idle for less than five minutes are kept: a new one re-plans its statements and recompiles
+  // the triggers' functions (tens of ms for the first pin on it), which a quiet spell in a yard would otherwise cost.
+  const pool = new pg.Pool({ connectionString: url, max, idleTimeoutMillis: 300_000 });
   pool.on('connect', preparing);
   pool.on('error', () => {
     /* idle client errors (e.g. server restart) are retried by the next query */
