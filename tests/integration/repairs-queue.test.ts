@@ -236,4 +236,15 @@ describe('repair queue pages and sorts on the server', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.sort).toBeDefined();
   });
+
+  it('matches the search words literally: %, _ and backslash are not wildcards, in the queue and the units roster', async () => {
+    const total = (q: string) => foreman.get(`/api/repairs?q=${encodeURIComponent(q)}`).then((r) => r.body.total as number);
+    const roster = (q: string) => foreman.get(`/api/units?q=${encodeURIComponent(q)}`).then((r) => (r.body.items as unknown[]).length);
+    expect(await total(Q)).toBeGreaterThanOrEqual(N - 100); // earlier tests here move a few rows on
+    // As wildcards these would match every row: no label or road number holds them.
+    for (const q of ['%', '_', `${Q.replace(' ', '_')}`, '\\']) expect({ q, n: await total(q) }).toEqual({ q, n: 0 });
+    expect(await total(`${Q} 000`)).toBeGreaterThan(0);
+    expect(await roster('HRL 2201')).toBe(1);
+    for (const q of ['%', 'HRL_2201', 'HRL%']) expect({ q, n: await roster(q) }).toEqual({ q, n: 0 });
+  });
 });

@@ -1,5 +1,6 @@
 import { sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
+import { likeLiteral } from '../../lib/like';
 import type { QueueFilterQuery, QueueItem, QueuePage, QueueSort, QueueSortColumn } from '../../../shared/api/repairs';
 import { defectTypeByKey } from '../../../shared/defects/catalogue';
 
@@ -74,7 +75,7 @@ function filterWhere(q: QueueFilterQuery): SQL[] {
   if (q.unit) w.push(sql`f.unit_id = ${q.unit}::uuid`);
   if (q.weight) w.push(sql`f.weight = ${q.weight}`);
   if (q.assignee) w.push(sql`f.assigned_to = ${q.assignee}::uuid`);
-  if (q.q) w.push(sql`(u.road_number ilike '%' || ${q.q}::text || '%' or f.label ilike '%' || ${q.q}::text || '%')`);
+  if (q.q) w.push(sql`(u.road_number ilike '%' || ${likeLiteral(q.q)}::text || '%' or f.label ilike '%' || ${likeLiteral(q.q)}::text || '%')`);
   return w;
 }
 

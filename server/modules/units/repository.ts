@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../db/client';
+import { likeLiteral } from '../../lib/like';
 import type { UnitRow } from '../../../shared/api/units';
 
 export interface UnitFilter {
@@ -27,7 +28,7 @@ export const unitsRepository = (db: DbOrTx) => ({
         join unit_types t on t.key = u.unit_type_key
         left join yards y on y.id = u.yard_id
        where (${f.id ?? null}::uuid is null or u.id = ${f.id ?? null}::uuid)
-         and (${f.q ?? null}::text is null or u.road_number ilike '%' || ${f.q ?? null}::text || '%')
+         and (${f.q ?? null}::text is null or u.road_number ilike '%' || ${f.q ? likeLiteral(f.q) : null}::text || '%')
          and (${f.yard ?? null}::uuid is null or u.yard_id = ${f.yard ?? null}::uuid)
          and (${f.type ?? null}::text is null or u.unit_type_key = ${f.type ?? null}::text)
          and (${f.frontEnd ?? null}::text is null or u.front_end = ${f.frontEnd ?? null}::text)

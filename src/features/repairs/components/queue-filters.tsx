@@ -4,6 +4,7 @@ import type { QueueFilterKey, QueueFilters } from '../api/queue';
 import type { Yard } from '../api/pickers';
 import { STATE_WORDS } from '../lib/format';
 import { WEIGHT_WORD } from '../../../components/weight-mark';
+import { useSendWhenTypingPauses } from '../../../lib/use-send-when-typing-pauses';
 
 interface Props {
   filters: QueueFilters;
@@ -19,11 +20,7 @@ export function QueueFilterBar({ filters, onChange, onClear, yards, units, peopl
   const id = useId();
   const [text, setText] = useState(filters.q ?? '');
   useEffect(() => setText(filters.q ?? ''), [filters.q]);
-  useEffect(() => {
-    if (text === (filters.q ?? '')) return;
-    const t = setTimeout(() => onChange('q', text), 300);
-    return () => clearTimeout(t);
-  }, [text, filters.q, onChange]);
+  useSendWhenTypingPauses(text, text !== (filters.q ?? ''), (v) => onChange('q', v), 300);
   const any = Object.values(filters).some(Boolean);
   const [shown, setShown] = useState(false);
   const select = (key: QueueFilterKey, label: string, options: { value: string; label: string }[], all: string) => (

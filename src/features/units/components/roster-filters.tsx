@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState } from 'react';
+import { useSendWhenTypingPauses } from '../../../lib/use-send-when-typing-pauses';
 import type { UnitTypeSummary, Yard } from '../api/pickers';
 import type { RosterFilterKey, RosterFilters } from '../lib/filters';
 import { FRONT_END_WORDS, SERVICE_STATE_WORDS } from '../lib/format';
@@ -29,15 +30,15 @@ export function RosterFilterBar({
       setQ(filters.q ?? '');
     }
   }, [filters.q]);
-  useEffect(() => {
-    const v = q.trim();
-    if (v === sent.current) return;
-    const t = setTimeout(() => {
+  useSendWhenTypingPauses(
+    q.trim(),
+    q.trim() !== sent.current,
+    (v) => {
       sent.current = v;
       onChange('q', v);
-    }, SEARCH_DELAY_MS);
-    return () => clearTimeout(t);
-  }, [q, onChange]);
+    },
+    SEARCH_DELAY_MS,
+  );
   const any = Object.values(filters).some(Boolean);
 
   const select = (key: RosterFilterKey, label: string, options: readonly { value: string; label: string }[], all: string) => (
