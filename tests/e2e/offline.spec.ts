@@ -216,3 +216,46 @@ test('offline: three findings (one with a photo), an area passed and a part mark
   await expect(page.getByTestId('offline-failed')).toBeHidden();
   expect(errors).toEqual([]);
 });
+
+test('offline: a finding pinned without a connection is sent from whatever screen the inspector is on when it returns', async ({ page }) => {
+  test.setTimeout(120_000);
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signIn(page, 'inspector');
+  await page.goto('/walkaround');
+  await page.getByLabel('Road number').fill('2202');
+  await page.getByRole('radio', { name: /HRL 2202/ }).click();
+  await page.getByRole('radio', { name: 'Daily' }).click();
+  await page.getByRole('button', { name: /^Confirm F on the (short|long) hood and start$/ }).click();
+  await expect(page).toHaveURL(/\/walkaround\/inspections\/[0-9a-f-]{36}/);
+  const id = /inspections\/([0-9a-f-]{36})/.exec(page.url())![1];
+  await page.getByRole('button', { name: 'Blue signal is up — continue' }).click();
+  await page.waitForFunction(async () => {
+    await navigator.serviceWorker.ready;
+    return navigator.serviceWorker.controller !== null;
+  });
+  const before = (await getInsp(page, id)).findings.length;
+  // HRL 2202 carries its F on the long hood, so the routine opens at the rear end (short hood). The form is
+  // opened once online, so the air hose's defect list is in memory, as in the test above.
+  const defect = page.getByRole('button', { name: 'Report a defect on Rear right air hose' });
+  await defect.click();
+  await expect(page.getByRole('radio', { name: 'Air hose chafed or cut' })).toBeVisible();
+  await page.getByRole('button', { name: 'Cancel' }).click();
+
+  await page.context().setOffline(true);
+  await expect(page.getByText(NO_CONNECTION)).toBeVisible();
+  await defect.click();
+  await page.getByRole('radio', { name: 'Air hose chafed or cut' }).check();
+  await page.getByRole('button', { name: 'Pin the finding' }).click();
+  await expect(page.getByTestId('offline-waiting').getByRole('heading')).toHaveText('Waiting to send: 1 finding');
+
+  // Off to another screen (the walkaround's are gone), then the connection returns there.
+  await page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Repair queue' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Repair queue' })).toBeVisible();
+  await page.context().setOffline(false);
+  await expect.poll(async () => (await getInsp(page, id)).findings.map((f) => f.defectLabel), { timeout: 30_000 }).toEqual(
+    expect.arrayContaining(['Air hose chafed or cut']),
+  );
+  expect((await getInsp(page, id)).findings).toHaveLength(before + 1);
+  expect(errors).toEqual([]);
+});
