@@ -7,9 +7,9 @@ import { startOfflineSync } from './sync';
  * screen, not only the walkaround's: an inspector who walks off to the repair queue or a unit's page
  * still has their findings delivered. The app shell mounts it, in its own chunk, for people who inspect.
  */
-export function OfflineSync() {
+export function OfflineSync({ personId = null }: { personId?: string | null }) {
   const qc = useQueryClient();
-  useEffect(() => startOfflineSync(qc), [qc]);
+  useEffect(() => startOfflineSync(qc, personId), [qc, personId]);
   return null;
 }
 export default OfflineSync;
