@@ -32,7 +32,7 @@ export function Shell() {
     <div className="flex min-h-full flex-col">
       {screens.some((s) => s.path === '/walkaround') && (
         <Suspense fallback={null}>
-          <OfflineSync personId={me.data.id} />
+          <OfflineSync />
         </Suspense>
       )}
       <header className="no-print sticky top-0 z-20 border-b-2 border-graphite bg-paper">

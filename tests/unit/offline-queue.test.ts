@@ -93,36 +93,6 @@ describe('offline finding queue', () => {
     expect(s.byKey.size).toBe(3);
   });
 
-  it("sends only the signed-in person's entries on a shared tablet, in their order; the rest wait for their own session", async () => {
-    const store = createMemoryStore();
-    const q = new OfflineQueue(store);
-    const s = fakeServer();
-    q.setPerson('ana');
-    await q.enqueue({ ...entry(1), inspectionId: 'insp-ana' });
-    await q.enqueueMark({ ...mark('m-1', 'passed', ['inst-9']), inspectionId: 'insp-ana' });
-    q.setPerson('ben');
-    await q.enqueue({ ...entry(2), inspectionId: 'insp-ben' });
-    expect(q.snapshot().pending.map((p) => [p.key, p.personId])).toEqual([['key-1', 'ana'], ['m-1', 'ana'], ['key-2', 'ben']]);
-    // Ben is signed in: his goes, Ana's stay (the server would refuse them to him: not his records).
-    expect(await q.flush(s.sender)).toEqual({ outcome: 'done', sent: ['key-2'], failed: [] });
-    expect(q.snapshot().pending.map((p) => p.key)).toEqual(['key-1', 'm-1']);
-    expect(q.snapshot().failed).toEqual([]);
-    // Ana signs in again on the same tablet (a new page load reads the kept queue).
-    const again = new OfflineQueue(store);
-    again.setPerson('ana');
-    expect(await again.flush(s.sender)).toEqual({ outcome: 'done', sent: ['key-1', 'm-1'], failed: [] });
-    expect(s.log).toEqual(['post key-2', 'post key-1', 'coverage m-1']);
-  });
-
-  it('sends entries kept before the queue recorded who made them, whoever is signed in', async () => {
-    const store = createMemoryStore();
-    const old = new OfflineQueue(store);
-    await old.enqueue(entry(1)); // no person known: no personId
-    const q = new OfflineQueue(store);
-    q.setPerson('ana');
-    expect((await q.flush(fakeServer().sender)).sent).toEqual(['key-1']);
-  });
-
   it('a double tap (the same key twice) is one entry', async () => {
     const q = new OfflineQueue(createMemoryStore());
     await q.enqueue(entry(1));

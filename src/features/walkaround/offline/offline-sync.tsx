@@ -7,9 +7,9 @@ import { startOfflineSync } from './sync';
  * screen, not only the walkaround's: an inspector who walks off to the repair queue or a unit's page
  * still has their findings delivered. The app shell mounts it, in its own chunk, for people who inspect.
  */
-export function OfflineSync({ personId = null }: { personId?: string | null }) {
+export function OfflineSync() {
   const qc = useQueryClient();
-  useEffect(() => startOfflineSync(qc, personId), [qc, personId]);
+  useEffect(() => startOfflineSync(qc), [qc]);
   return null;
 }
 export default OfflineSync;

@@ -39,8 +39,6 @@ export interface QueuedFinding {
   /** Set once the server accepted the finding; its photos follow. */
   findingId?: string;
   photosSent: number;
-  /** Who made it: only their session sends it (absent on entries kept by an older version: anyone's sends them). */
-  personId?: string;
 }
 
 export type CoverageMarkBody = z.infer<typeof CoverageBody>;
@@ -55,8 +53,6 @@ export interface QueuedMark {
   /** The parts' names as the inspector saw them, and the area they were passed from (if a whole area). */
   preview: { parts: string[]; area: string | null };
   queuedAt: string;
-  /** As on a finding. */
-  personId?: string;
 }
 
 export type QueuedEntry = QueuedFinding | QueuedMark;
@@ -137,23 +133,7 @@ export class OfflineQueue {
   private flushing: Promise<FlushResult> | null = null;
   private listeners = new Set<() => void>();
 
-  /** The signed-in person on this device; null when not known (then every entry is sent). */
-  private person: string | null = null;
-
   constructor(private readonly store: QueueStore) {}
-
-  /**
-   * Who is signed in. A tablet may pass between people: what one made waits for their own session, since
-   * another's would be refused (only the inspector who started a record adds to it) and the work set aside.
-   */
-  setPerson(id: string | null) {
-    this.person = id;
-  }
-
-  /** Whether this session sends the entry. */
-  private mine(e: QueuedEntry) {
-    return !this.person || !e.personId || e.personId === this.person;
-  }
 
   /** The last state read or written; stable between changes (for useSyncExternalStore). */
   snapshot(): QueueState {
@@ -206,11 +186,11 @@ export class OfflineQueue {
   }
 
   enqueue(e: NewFinding): Promise<QueueState> {
-    return this.add({ personId: this.person ?? undefined, ...e, kind: 'finding', key: e.body.idempotencyKey, queuedAt: e.queuedAt ?? new Date().toISOString(), photosSent: 0 });
+    return this.add({ ...e, kind: 'finding', key: e.body.idempotencyKey, queuedAt: e.queuedAt ?? new Date().toISOString(), photosSent: 0 });
   }
 
   enqueueMark(e: NewMark): Promise<QueueState> {
-    return this.add({ personId: this.person ?? undefined, ...e, kind: 'coverage', queuedAt: e.queuedAt ?? new Date().toISOString() });
+    return this.add({ ...e, kind: 'coverage', queuedAt: e.queuedAt ?? new Date().toISOString() });
   }
 
   dismiss(key: string): Promise<QueueState> {
@@ -263,9 +243,7 @@ export class OfflineQueue {
     const failed: string[] = [];
     for (;;) {
       await this.chain;
-      // The oldest of this person's; another person's entries are for their own records, so skipping them
-      // never lets a change to one record overtake another to the same record.
-      const head = this.state.pending.find((p) => this.mine(p));
+      const head = this.state.pending[0];
       if (!head) return { outcome: 'done', sent, failed };
       try {
         await this.sendOne(sender, head);

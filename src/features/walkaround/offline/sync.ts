@@ -158,9 +158,8 @@ export const flushNow = () => scheduler.sendNow();
  * Starts sending: now (app start), the moment the connection returns or the page is shown again
  * (no waiting out a backoff), and on a backoff timer while the server fails. Returns a stop function.
  */
-export function startOfflineSync(qc: QueryClient, personId: string | null = null) {
+export function startOfflineSync(qc: QueryClient) {
   client = qc;
-  offlineQueue.setPerson(personId);
   const now = () => void scheduler.sendNow();
   const visible = () => {
     if (document.visibilityState === 'visible') now();
