@@ -1,13 +1,10 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { Suspense, useEffect, useState } from 'react';
 import { NavLink, Navigate, Outlet, useLocation } from 'react-router-dom';
 import { ROLE_LABELS } from '../../shared/domain/roles';
 import { ErrorBoundary } from '../components/error-boundary';
 import { Logo } from '../components/logo';
 import { useLogout, useMe } from '../features/auth/api/me';
 import { screensFor } from './screens';
-
-// The offline queue's sending, in its own chunk: loaded only for people who inspect.
-const OfflineSync = lazy(() => import('../features/walkaround/offline/offline-sync'));
 
 function useTheme() {
   const [dark, setDark] = useState(() => localStorage.getItem('hoodline.theme') === 'dark');
@@ -30,11 +27,6 @@ export function Shell() {
   const screens = screensFor(me.data.role);
   return (
     <div className="flex min-h-full flex-col">
-      {screens.some((s) => s.path === '/walkaround') && (
-        <Suspense fallback={null}>
-          <OfflineSync />
-        </Suspense>
-      )}
       <header className="no-print sticky top-0 z-20 border-b-2 border-graphite bg-paper">
         <div className="flex items-center gap-3 px-3 py-2">
           <NavLink to="/" className="flex items-center gap-2 text-2xl font-bold" aria-label="Hoodline home">

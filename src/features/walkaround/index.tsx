@@ -5,13 +5,13 @@ import { SignScreen } from './components/sign-screen';
 import { StartScreen } from './components/start-screen';
 import { TagPage } from './components/tag-page';
 import { WalkScreen } from './components/walk-screen';
-import { OfflinePanel } from './offline/offline-panel';
+import { OfflinePanel, OfflineSync } from './offline/offline-panel';
 
 /** Walkaround: start, walk the routine, sign, print the record and the tag. Mounted at /walkaround/*. */
 export default function Walkaround() {
   return (
     <>
-      {/* What waits on the device is sent from every screen: the app shell runs the sending (offline/offline-sync.tsx). */}
+      <OfflineSync />
       <OfflinePanel />
       <Routes>
         <Route index element={<StartScreen />} />

@@ -1,9 +1,15 @@
-import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
 import { entryTitle, isFinding, isMark, noteText, type FailedEntry, type QueuedEntry } from './queue';
 import { Link } from 'react-router-dom';
-import { flushNow, keepRefusedAsNote, offlineQueue, useOfflineQueue, useQueueSignedOut } from './sync';
+import { flushNow, keepRefusedAsNote, offlineQueue, startOfflineSync, useOfflineQueue, useQueueSignedOut } from './sync';
 
-export { OfflineSync } from './offline-sync';
+/** Starts the queue's sending for the walkaround screens (app start, connection back, page shown again, retry timer). */
+export function OfflineSync() {
+  const qc = useQueryClient();
+  useEffect(() => startOfflineSync(qc), [qc]);
+  return null;
+}
 
 function CopyNote({ f }: { f: FailedEntry }) {
   const [copied, setCopied] = useState<'yes' | 'no' | null>(null);
