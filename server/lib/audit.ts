@@ -10,9 +10,9 @@ export interface AuditEntry {
   details?: unknown;
 }
 
-/** Every write records who, when, what and from where; the table refuses UPDATE and DELETE. */
-export async function audit(db: DbOrTx, e: AuditEntry): Promise<void> {
-  await db.insert(auditLog).values({
+/** The audit row's insert, for a statement that writes it beside other rows (a pin's trail). */
+export const auditInsert = (db: DbOrTx, e: AuditEntry) =>
+  db.insert(auditLog).values({
     actorId: e.actorId,
     action: e.action,
     entity: e.entity,
@@ -20,4 +20,8 @@ export async function audit(db: DbOrTx, e: AuditEntry): Promise<void> {
     ip: e.ip ?? null,
     details: (e.details ?? null) as object | null,
   });
+
+/** Every write records who, when, what and from where; the table refuses UPDATE and DELETE. */
+export async function audit(db: DbOrTx, e: AuditEntry): Promise<void> {
+  await auditInsert(db, e);
 }

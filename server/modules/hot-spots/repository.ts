@@ -427,8 +427,10 @@ export interface PinKey {
   instanceId: string;
   defectType: string;
 }
-/** The key's turn (the lock `lockKey` takes), as an expression for a statement that needs it before a new finding exists. */
-export const pinTurn = (k: PinKey) => sql`pg_advisory_xact_lock(4242006, hashtext(${k.unitId}::uuid::text || '/' || ${k.instanceId}::text || '/' || ${k.defectType}::text))`;
+/** The lock a key's writes take turns on (drizzle/0006's trigger takes the same one), from its three parts as SQL. */
+const turnOn = (unitId: SQL, instanceId: SQL, defectType: SQL) => sql`pg_advisory_xact_lock(4242006, hashtext(${unitId}::text || '/' || ${instanceId} || '/' || ${defectType}))`;
+/** The key's turn, as an expression for a statement that needs it before a new finding exists. */
+export const pinTurn = (k: PinKey) => turnOn(sql`${k.unitId}::uuid`, sql`${k.instanceId}::text`, sql`${k.defectType}::text`);
 
 export const priorRepairs = (db: DbOrTx) => {
   const self = {
@@ -439,7 +441,7 @@ export const priorRepairs = (db: DbOrTx) => {
      */
     async lockKey(findingId: string) {
       await db.execute(sql`
-        select pg_advisory_xact_lock(4242006, hashtext(unit_id::text || '/' || instance_id || '/' || defect_type)) from findings where id = ${findingId}`);
+        select ${turnOn(sql`unit_id`, sql`instance_id`, sql`defect_type`)} from findings where id = ${findingId}`);
     },
     /** A new finding (walkaround): its own number, read as it is inserted; its key's turn (`turn`) is taken first, in an earlier statement. */
     // `at` is the finding's created_at: the transaction's now(), the column's default.

@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { PgInsertValue } from 'drizzle-orm/pg-core';
 import type { DbOrTx } from '../../db/client';
+import { auditInsert } from '../../lib/audit';
 import { pinTurn, type PinKey } from '../hot-spots/repository';
 import {
   findingEvents,
@@ -70,9 +71,7 @@ export const walkaroundRepository = (db: DbOrTx) => ({
       insert into inspection_items (inspection_id, instance_id, state, reason, updated_at)
       values (${t.inspectionId}, ${t.instanceId}, 'finding', null, now())
       on conflict (inspection_id, instance_id) do update set state = 'finding', reason = null, updated_at = now()`);
-    const au = db.$with('au', {}).as(sql`
-      insert into audit_log (actor_id, action, entity, entity_id, ip, details)
-      values (${t.actorId}, ${t.action}, 'finding', ${v.id}, ${t.ip}, ${JSON.stringify(t.audit)}::jsonb)`);
+    const au = db.$with('au', {}).as(auditInsert(db, { actorId: t.actorId, action: t.action, entity: 'finding', entityId: v.id, ip: t.ip, details: t.audit }).getSQL());
     const [r] = await db.with(ev, item, au).insert(findings).values(v).returning();
     return r;
   },
@@ -186,12 +185,6 @@ export const walkaroundRepository = (db: DbOrTx) => ({
        where i.id = ${inspectionId}`);
     return r.rows[0] ?? null;
   },
-  async items(inspectionId: string) {
-    return db
-      .select({ instanceId: inspectionItems.instanceId, state: inspectionItems.state, reason: inspectionItems.reason })
-      .from(inspectionItems)
-      .where(eq(inspectionItems.inspectionId, inspectionId));
-  },
   async setItems(inspectionId: string, rows: { instanceId: string; state: string; reason: string | null }[]) {
     if (!rows.length) return;
     await db
@@ -202,7 +195,6 @@ export const walkaroundRepository = (db: DbOrTx) => ({
         set: { state: sql`excluded.state`, reason: sql`excluded.reason`, updatedAt: new Date() },
       });
   },
-  /** Marks an item as having a finding unless it already says so. */
   async findingsOfInspection(inspectionId: string) {
     return db.select().from(findings).where(eq(findings.inspectionId, inspectionId)).orderBy(asc(findings.createdAt));
   },
